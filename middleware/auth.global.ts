@@ -1,0 +1,11 @@
+import type { Role } from '#shared/types/roles'
+
+// Interface guard only: every page but sign-in needs a session. The server checks every request itself.
+export default defineNuxtRouteMiddleware(async (to) => {
+  const { loggedIn } = useUserSession()
+  if (to.path === '/login') return
+  if (!loggedIn.value) return navigateTo({ path: '/login', query: to.fullPath !== '/' ? { next: to.fullPath } : {} })
+  const roles = to.meta.roles as Role[] | undefined
+  const { user } = useUserSession()
+  if (roles && !roles.some(r => user.value?.roles.includes(r))) return navigateTo('/')
+})

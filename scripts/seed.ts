@@ -1,0 +1,33 @@
+// Loads the demo lab into NUXT_DATABASE_URL. Idempotent: a second run adds nothing.
+import { Hash } from '@adonisjs/hash'
+import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
+import { drizzle } from 'drizzle-orm/node-postgres'
+import pg from 'pg'
+import * as schema from '../server/database/schema'
+import { DEFAULT_POLICY } from '../shared/domain/policy'
+import { DEMO_LAB_NAME, DEMO_PASSWORD, DEMO_USERS } from '../data/demo-lab'
+
+const url = process.env.NUXT_DATABASE_URL
+if (!url) throw new Error('NUXT_DATABASE_URL is not set')
+const pool = new pg.Pool({ connectionString: url, max: 2 })
+const db = drizzle(pool, { schema })
+// The same scrypt settings as nuxt.config.ts (OWASP: N = 2^17, r = 8, p = 1).
+const hasher = new Hash(new Scrypt({ cost: 131072, blockSize: 8, parallelization: 1, maxMemory: 256 * 1024 * 1024 }))
+
+await db.transaction(async (tx) => {
+  const settings = await tx.insert(schema.labSettings).values({ id: 1, labName: DEMO_LAB_NAME, policy: DEFAULT_POLICY })
+    .onConflictDoNothing().returning()
+  if (settings.length) {
+    await tx.insert(schema.auditLog).values({ action: 'seed.lab-settings', entity: 'lab-settings', entityId: '1', newValues: settings[0]!, reason: 'demo lab loaded' })
+  }
+  const existing = new Set((await tx.select({ email: schema.users.email }).from(schema.users)).map(r => r.email))
+  for (const u of DEMO_USERS.filter(d => !existing.has(d.email))) {
+    const rows = await tx.insert(schema.users).values({ ...u, passwordHash: await hasher.make(DEMO_PASSWORD) })
+      .onConflictDoNothing({ target: schema.users.email }).returning({ id: schema.users.id })
+    if (rows.length) {
+      await tx.insert(schema.auditLog).values({ action: 'user.create', entity: 'user', entityId: rows[0]!.id, newValues: u, reason: 'demo lab loaded' })
+    }
+  }
+})
+await pool.end()
+console.log('demo lab ready')

@@ -1,0 +1,20 @@
+import { eq } from 'drizzle-orm'
+import { DEFAULT_POLICY, labPolicySchema } from '#shared/domain/policy'
+import type { LabPolicy } from '#shared/domain/policy'
+
+export interface LabSettings { labName: string, policy: LabPolicy, updatedAt: Date | null }
+
+/** The lab's policy in force: the stored values over the defaults of DESIGN.md (read fresh: several instances may serve). */
+export async function getLabSettings(): Promise<LabSettings> {
+  const [row] = await useDb().select().from(schema.labSettings).where(eq(schema.labSettings.id, 1))
+  const stored = labPolicySchema.partial().safeParse(row?.policy ?? {})
+  return {
+    labName: row?.labName ?? 'Emberline laboratory',
+    policy: { ...DEFAULT_POLICY, ...(stored.success ? stored.data : {}) },
+    updatedAt: row?.updatedAt ?? null,
+  }
+}
+
+export async function getPolicy(): Promise<LabPolicy> {
+  return (await getLabSettings()).policy
+}
