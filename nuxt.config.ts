@@ -1,4 +1,7 @@
 // Emberline — Nuxt configuration. The project keeps pages/, components/ … at the root.
+// EMBERLINE_BUILD_DIR lets a second build (a parallel worktree, a benchmark) live beside the main one.
+const buildRoot = process.env.EMBERLINE_BUILD_DIR
+
 export default defineNuxtConfig({
   // Nuxt 4 switches to app/ as soon as such a folder appears; the project's layout is the root.
   srcDir: '.',
@@ -33,7 +36,8 @@ export default defineNuxtConfig({
   tailwindcss: { cssPath: false, configPath: 'tailwind.config.ts', viewer: false },
   eslint: { config: { stylistic: false } },
   typescript: { strict: true },
+  ...(buildRoot ? { buildDir: `${buildRoot}/.nuxt` } : {}),
   nitro: {
-    storage: {},
+    ...(buildRoot ? { output: { dir: `${buildRoot}/.output` } } : {}),
   },
 })

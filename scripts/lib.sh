@@ -47,6 +47,5 @@ ensure_build() {
   fi
   say "building the app (nuxt build, about 30 s)"
   (cd "$ROOT" && npx nuxt build >"$DATA/build.log" 2>&1) || { tail -40 "$DATA/build.log"; exit 1; }
-  cp -r "$ROOT/server/database/migrations" "$ROOT/.output/server/migrations"
   touch "$stamp"
 }

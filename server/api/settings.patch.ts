@@ -3,7 +3,8 @@ import { labPolicySchema } from '#shared/domain/policy'
 
 const body = z.object({
   labName: z.string().trim().min(1).max(160).optional(),
-  policy: labPolicySchema.partial().optional(),
+  // Validated whole, after merging over the policy in force (the schema checks fields against each other).
+  policy: z.record(z.string(), z.unknown()).optional(),
   reason: z.string().trim().min(3, 'say why the policy changes').max(1000),
 }).strict()
 

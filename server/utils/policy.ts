@@ -7,10 +7,11 @@ export interface LabSettings { labName: string, policy: LabPolicy, updatedAt: Da
 /** The lab's policy in force: the stored values over the defaults of DESIGN.md (read fresh: several instances may serve). */
 export async function getLabSettings(): Promise<LabSettings> {
   const [row] = await useDb().select().from(schema.labSettings).where(eq(schema.labSettings.id, 1))
-  const stored = labPolicySchema.partial().safeParse(row?.policy ?? {})
+  const merged = labPolicySchema.safeParse({ ...DEFAULT_POLICY, ...(row?.policy as object | null) })
+  if (!merged.success) console.error('[policy] stored policy is invalid; the defaults are in force:', merged.error.message)
   return {
     labName: row?.labName ?? 'Emberline laboratory',
-    policy: { ...DEFAULT_POLICY, ...(stored.success ? stored.data : {}) },
+    policy: merged.success ? merged.data : DEFAULT_POLICY,
     updatedAt: row?.updatedAt ?? null,
   }
 }

@@ -34,7 +34,7 @@ describe('sign-in in Chromium', () => {
       const page = await openPage()
       await signInAs(page, r.email)
       expect(new URL(page.url()).pathname).toBe(r.landing)
-      await expect(page.getByRole('heading', { level: 1 }).first().textContent()).resolves.toContain(r.heading)
+      await page.locator('main h1', { hasText: r.heading }).waitFor()
       await expect(page.getByTestId('user-roles').textContent()).resolves.toContain(r.roles)
       await expect(page.getByText('local regulations').isVisible()).resolves.toBe(true)
       await shot(page, `landing-${r.email.split('@')[0]}`)
