@@ -5,6 +5,7 @@ export interface NavItem { label: string, to: string, roles: Role[] | 'all' }
 
 export const NAV_ITEMS: NavItem[] = [
   { label: 'Today', to: '/', roles: 'all' },
+  { label: 'Vessels', to: '/vessels', roles: 'all' },
   { label: 'Audit', to: '/audit', roles: ['supervisor', 'admin'] },
   { label: 'Admin', to: '/admin/users', roles: ['admin'] },
 ]

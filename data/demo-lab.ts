@@ -11,3 +11,36 @@ export const DEMO_USERS: { email: string, name: string, roles: Role[] }[] = [
   { email: 'technician@emberline.test', name: 'Sam Adeyemi', roles: ['technician'] },
   { email: 'admin@emberline.test', name: 'Priya Natarajan', roles: ['admin'] },
 ]
+
+const DAY = 86_400_000
+
+/** Demo vessels (invented), in different states; dates are relative to the day the demo lab is loaded. */
+export function demoVessels(now = Date.now()) {
+  return [
+    {
+      name: 'KR-1 Aster', serialNumber: 'KRF-19-0113', class: 'standard', ratedEnergyJ: 33000, maxChargeMassG: 1.5, maxFillPressureMPa: 4.05, volumeMl: 300,
+      location: 'Bench A', notes: 'Main vessel for coal and coke.', condition: 'normal',
+      firingsSinceService: 212, firingsSinceRequalification: 1840, firingsTotal: 4310, lastServicedAt: new Date(now - 61 * DAY), lastRequalifiedAt: new Date(now - 700 * DAY),
+    },
+    {
+      name: 'KR-2 Birch', serialNumber: 'KRF-19-0114', class: 'standard', ratedEnergyJ: 33000, maxChargeMassG: 1.5, maxFillPressureMPa: 4.05, volumeMl: 300,
+      location: 'Bench A', notes: 'Biofuels and food.', condition: 'normal',
+      firingsSinceService: 468, firingsSinceRequalification: 2470, firingsTotal: 2470, lastServicedAt: new Date(now - 120 * DAY), lastRequalifiedAt: null,
+    },
+    {
+      name: 'KR-3 Cedar', serialNumber: 'KRH-21-0007', class: 'high-strength', ratedEnergyJ: 40000, maxChargeMassG: 2.0, maxFillPressureMPa: 4.05, volumeMl: 340,
+      location: 'Blast cell', notes: 'High-strength vessel for samples the screen flags; seals renewed this week.', condition: 'awaiting-verification',
+      firingsSinceService: 0, firingsSinceRequalification: 390, firingsTotal: 1260, lastServicedAt: new Date(now - 2 * DAY), lastRequalifiedAt: new Date(now - 300 * DAY),
+    },
+    {
+      name: 'KR-4 Damson', serialNumber: 'KRF-17-0458', class: 'standard', ratedEnergyJ: 30000, maxChargeMassG: 1.2, maxFillPressureMPa: 3.5, volumeMl: 250,
+      location: 'Bench B', notes: 'Small vessel for oils and plastics.', condition: 'normal',
+      firingsSinceService: 141, firingsSinceRequalification: 3120, firingsTotal: 4980, lastServicedAt: new Date(now - 190 * DAY), lastRequalifiedAt: new Date(now - 900 * DAY),
+    },
+    {
+      name: 'KR-5 Elder', serialNumber: 'KRF-16-0302', class: 'standard', ratedEnergyJ: 33000, maxChargeMassG: 1.5, maxFillPressureMPa: 4.05, volumeMl: 300,
+      location: 'Bench B', notes: '', condition: 'locked-out', conditionReason: 'Overpressure reported on firing of sample WF-2211; vessel withdrawn for requalification.',
+      firingsSinceService: 377, firingsSinceRequalification: 4650, firingsTotal: 9120, lastServicedAt: new Date(now - 95 * DAY), lastRequalifiedAt: new Date(now - 1400 * DAY),
+    },
+  ]
+}

@@ -5,7 +5,7 @@ import { drizzle } from 'drizzle-orm/node-postgres'
 import pg from 'pg'
 import * as schema from '../server/database/schema'
 import { DEFAULT_POLICY } from '../shared/domain/policy'
-import { DEMO_LAB_NAME, DEMO_PASSWORD, DEMO_USERS } from '../data/demo-lab'
+import { DEMO_LAB_NAME, DEMO_PASSWORD, DEMO_USERS, demoVessels } from '../data/demo-lab'
 
 const url = process.env.NUXT_DATABASE_URL
 if (!url) throw new Error('NUXT_DATABASE_URL is not set')
@@ -26,6 +26,24 @@ await db.transaction(async (tx) => {
       .onConflictDoNothing({ target: schema.users.email }).returning({ id: schema.users.id })
     if (rows.length) {
       await tx.insert(schema.auditLog).values({ action: 'user.create', entity: 'user', entityId: rows[0]!.id, newValues: u, reason: 'demo lab loaded' })
+    }
+  }
+  const P = DEFAULT_POLICY
+  for (const v of demoVessels()) {
+    const rows = await tx.insert(schema.vessels).values({
+      ...v,
+      proofChargeMassG: P.proofChargeMassG,
+      proofChargeHeatingValueJPerG: P.proofChargeHeatingValueJPerG,
+      proofChargeFillPressureMPa: P.proofChargeFillPressureMPa,
+      serviceIntervalFirings: P.serviceIntervalFirings,
+      serviceIntervalDays: P.serviceIntervalDays,
+      requalificationIntervalFirings: P.requalificationIntervalFirings,
+      firingsTotalAtRegistration: v.firingsTotal,
+      conditionSince: v.condition === 'normal' ? null : new Date(),
+      registeredAt: new Date(Date.now() - 400 * 86_400_000),
+    }).onConflictDoNothing({ target: schema.vessels.name }).returning()
+    if (rows.length) {
+      await tx.insert(schema.auditLog).values({ action: 'vessel.register', entity: 'vessel', entityId: rows[0]!.id, newValues: rows[0]!, reason: 'demo lab loaded' })
     }
   }
 })

@@ -88,6 +88,8 @@ export const vessels = pgTable('vessels', {
   firingsSinceService: integer('firings_since_service').notNull().default(0),
   firingsSinceRequalification: integer('firings_since_requalification').notNull().default(0),
   firingsTotal: integer('firings_total').notNull().default(0),
+  // Lifetime firings the vessel had when registered (before Emberline): reconciliation counts from here.
+  firingsTotalAtRegistration: integer('firings_total_at_registration').notNull().default(0),
   lastServicedAt: timestamp('last_serviced_at', { withTimezone: true }),
   lastRequalifiedAt: timestamp('last_requalified_at', { withTimezone: true }),
   // Last state for which a reminder went out (so each transition is mailed once).

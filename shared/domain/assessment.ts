@@ -159,7 +159,7 @@ export const FINDING_CODES = {
   'energy-over-rating': { severity: 'block', description: 'Heat release above the vessel rating.' },
   'mass-over-maximum': { severity: 'block', description: 'Charge mass (sample + aid) above the vessel maximum.' },
   'fill-over-maximum': { severity: 'block', description: 'Oxygen fill above the vessel maximum.' },
-  'oxygen-insufficient': { severity: 'block', description: 'Oxygen excess below the policy minimum (1): combustion cannot complete.' },
+  'oxygen-insufficient': { severity: 'block', description: 'Oxygen excess below the policy minimum: combustion cannot complete.' },
   'energetic-in-standard-vessel': { severity: 'block', description: 'Energetic material in a standard vessel.' },
   'peak-over-proof': { severity: 'block', description: 'Peak-pressure bound above the bound of the vessel proof charge.' },
   'energy-near-rating': { severity: 'approval', description: 'Heat release above the approval fraction of the vessel rating.' },
@@ -298,36 +298,37 @@ function sameAtoms(a: AtomCounts, b: AtomCounts): boolean {
  */
 export async function resolveComponents<T extends ChargeComponentInput>(components: readonly T[]): Promise<(T & { resolved?: ResolvedChemistry })[]> {
   const issues: InputIssue[] = []
+  const attempt = async (path: (string | number)[], work: () => Promise<ResolvedChemistry>): Promise<ResolvedChemistry | undefined> => {
+    try {
+      return await work()
+    }
+    catch (error) {
+      if (!(error instanceof CompositionError)) throw error
+      issues.push({ path, message: error.message })
+      return undefined
+    }
+  }
   const out = await Promise.all(
     components.map(async (component, index) => {
-      const { resolved: _ignored, ...rest } = component as T & { resolved?: ResolvedChemistry }
-      const base = rest as T
-      try {
-        if (component.smiles !== undefined && component.smiles.trim() !== '') {
-          const smiles = component.smiles.trim()
-          const resolved = await cached(`s:${smiles}`, async () => {
+      // A caller's own `resolved` is never trusted: it is replaced or dropped.
+      const base: T & { resolved?: ResolvedChemistry } = { ...component }
+      delete base.resolved
+      const smiles = component.smiles?.trim() || undefined
+      const formula = component.formula?.trim() || undefined
+      const fromStructureText = smiles
+        ? await attempt(['components', index, 'smiles'], () => cached(`s:${smiles}`, async () => {
             const { analyseStructure } = await import('./structure')
             return fromStructure(analyseStructure(smiles))
-          })
-          if (component.formula !== undefined && component.formula.trim() !== '') {
-            const formula = component.formula.trim()
-            const fromFormula = await cached(`f:${formula}`, async () => ({ source: 'formula', ...(await compositionFromFormula(formula)) }))
-            if (!sameAtoms(fromFormula.atoms, resolved.atoms)) {
-              issues.push({ path: ['components', index, 'formula'], message: `Formula ${formula} does not match the structure, which is ${resolved.formula}` })
-            }
-          }
-          return { ...base, resolved }
-        }
-        if (component.formula !== undefined && component.formula.trim() !== '') {
-          const formula = component.formula.trim()
-          const resolved = await cached(`f:${formula}`, async () => ({ source: 'formula', ...(await compositionFromFormula(formula)) }))
-          return { ...base, resolved }
-        }
+          }))
+        : undefined
+      const fromFormulaText = formula
+        ? await attempt(['components', index, 'formula'], () => cached(`f:${formula}`, async () => ({ source: 'formula', ...(await compositionFromFormula(formula)) })))
+        : undefined
+      if (fromStructureText && fromFormulaText && !sameAtoms(fromFormulaText.atoms, fromStructureText.atoms)) {
+        issues.push({ path: ['components', index, 'formula'], message: `Formula ${formula} does not match the structure, which is ${fromStructureText.formula}` })
       }
-      catch (error) {
-        if (!(error instanceof CompositionError)) throw error
-        issues.push({ path: ['components', index, component.smiles ? 'smiles' : 'formula'], message: error.message })
-      }
+      const resolved = fromStructureText ?? fromFormulaText
+      if (resolved) base.resolved = resolved
       return base
     }),
   )
@@ -506,7 +507,6 @@ interface ChargeModel {
   perSampleGram: { heatJ: number; demandMol: number; products: GasAmounts; volumeMl: number }
   baseSampleMassG: number
   geometry: { volumeMl: number; waterMl: number; temperatureC: number }
-  fillGaugeMPa: number
   o2PerMl: number
   n2PerMl: number
   temperatureK: number
@@ -564,7 +564,6 @@ function buildModel(input: ChargeInput, policy: LabPolicy): ChargeModel {
     perSampleGram,
     baseSampleMassG,
     geometry,
-    fillGaugeMPa: input.fillPressureMPa,
     o2PerMl: empty.oxygenMol / empty.freeVolumeMl,
     n2PerMl: empty.nitrogenMol / empty.freeVolumeMl,
     temperatureK: empty.temperatureK,
@@ -764,7 +763,7 @@ function screeningFindings(model: ChargeModel, input: ChargeInput, policy: LabPo
     if (!s) continue
     if (s.status === 'energetic') energeticReasons.push({ index: c.index, label: c.label, reasons: s.reasons, groups: s.groups })
     if (s.status === 'oxidiser') {
-      const text = `Oxidiser ${c.label} is ${pct(oxidiserPct)} of the charge mass (${grams(chargeMassG)})`
+      const text = `Oxidiser ${c.label} is ${oxidiserPct.toFixed(1)} % of the charge mass (${grams(chargeMassG)})`
       out.push(finding(
         'oxidiser-mixture',
         oxidiserEnergetic
@@ -772,7 +771,7 @@ function screeningFindings(model: ChargeModel, input: ChargeInput, policy: LabPo
           : `${text}, at or below the ${limit} % screening limit: the screen clears the mixture (UN Manual of Tests and Criteria, App. 6).`,
         { component: c.index, oxidiserPct, limitPct: limit },
       ))
-      if (oxidiserEnergetic) energeticReasons.push({ index: c.index, label: c.label, reasons: [`inorganic oxidiser ${pct(oxidiserPct)} of a mixture with organics (> ${limit} %)`], groups: [] })
+      if (oxidiserEnergetic) energeticReasons.push({ index: c.index, label: c.label, reasons: [`inorganic oxidiser ${oxidiserPct.toFixed(1)} % of the charge, above ${limit} %`], groups: [] })
     }
     if (s.status === 'unclearable') {
       out.push(finding(

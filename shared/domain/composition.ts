@@ -8,15 +8,15 @@ export type CompositionBasis = 'dry' | 'as-received' | 'air-dried'
  * dry solid and moisture, when given, is that of the sample as weighed. H and O exclude the moisture.
  */
 export interface Composition {
-  C?: number
-  H?: number
-  N?: number
-  S?: number
-  O?: number
-  Cl?: number
-  ash?: number
-  moisture?: number
-  basis?: CompositionBasis
+  C?: number | undefined
+  H?: number | undefined
+  N?: number | undefined
+  S?: number | undefined
+  O?: number | undefined
+  Cl?: number | undefined
+  ash?: number | undefined
+  moisture?: number | undefined
+  basis?: CompositionBasis | undefined
 }
 
 export const COMPOSITION_FIELDS = ['C', 'H', 'N', 'S', 'O', 'Cl', 'ash', 'moisture'] as const

@@ -48,7 +48,7 @@ export function channiwalaParikhMJPerKg(dry: Composition): number {
   )
 }
 
-/** Fields of a dry composition outside the correlation's validity ranges (Channiwala & Parikh 2002, Table 4). */
+/** Fields of a dry composition outside the correlation's validity ranges (Channiwala & Parikh 2002, Fuel 81:1051). */
 export function correlationRangeViolations(dry: Composition): RangeViolation[] {
   const out: RangeViolation[] = []
   for (const field of Object.keys(CHANNIWALA_PARIKH_RANGES) as CorrelationField[]) {

@@ -5,14 +5,14 @@ import { type AsFiredFractions, type Composition, asFiredFractions, ATOMIC_WEIGH
 export const GAS_CONSTANT = 8.314462618
 /** Standard atmosphere, MPa (NIST SP 811). */
 export const STANDARD_ATMOSPHERE_MPA = 0.101325
-/** Mole fraction of O2 in dry air (ISO 2533 standard atmosphere: 20.946 %). */
+/** Mole fraction of O2 in dry air (ISO 2533 standard atmosphere, 20.946 % by volume, rounded as in the design brief). */
 export const AIR_OXYGEN_MOLE_FRACTION = 0.2095
 /** Heat released per gram of O2 consumed by most organic fuels, J/g (Huggett 1980, Fire and Materials 4:61). */
 export const HUGGETT_J_PER_G_O2 = 13100
 /** Molar mass of O2, g/mol (IUPAC atomic weights). */
 export const O2_MOLAR_MASS = 2 * 15.999
 
-// Critical constants of O2 (Schmidt & Wagner 1985, Fluid Phase Equilib. 19:175) and acentric factor (from memory).
+// Critical point of O2 as in Schmidt & Wagner 1985 (Fluid Phase Equilib. 19:175) and its acentric factor; values from memory, checked through the Z tests.
 const O2_CRITICAL_TEMPERATURE_K = 154.581
 const O2_CRITICAL_PRESSURE_PA = 5.043e6
 const O2_ACENTRIC_FACTOR = 0.0222

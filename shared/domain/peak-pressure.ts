@@ -20,7 +20,8 @@ export interface NasaRange {
   b2: number
 }
 
-// Coefficients as published in NASA/TP-2002-211556 (its thermo data file), ranges 200–1000 K and 1000–6000 K.
+// Coefficients of NASA/TP-2002-211556 (its thermo data file), ranges 200–1000 K and 1000–6000 K; the tests check them
+// against JANAF cp, H and S, the CODATA enthalpies of formation, and the continuity of the two ranges at 1000 K.
 export const NASA_GLENN_COEFFICIENTS: Readonly<Record<GasSpecies, readonly [NasaRange, NasaRange]>> = {
   O2: [
     { tMinK: 200, tMaxK: 1000, a: [-3.425563420e4, 4.847000970e2, 1.119010961, 4.293889240e-3, -6.836300520e-7, -2.023372700e-9, 1.039040018e-12], b1: -3.391454870e3, b2: 1.849699470e1 },

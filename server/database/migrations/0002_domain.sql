@@ -149,6 +149,7 @@ CREATE TABLE "vessels" (
 	"firings_since_service" integer DEFAULT 0 NOT NULL,
 	"firings_since_requalification" integer DEFAULT 0 NOT NULL,
 	"firings_total" integer DEFAULT 0 NOT NULL,
+	"firings_total_at_registration" integer DEFAULT 0 NOT NULL,
 	"last_serviced_at" timestamp with time zone,
 	"last_requalified_at" timestamp with time zone,
 	"notified_state" text,

@@ -92,7 +92,7 @@ describe('oxygen excess', () => {
     const low = run([withComposition()], { fillPressureMPa: f1 - 0.001 })
     expect(codes(low)).toContain('oxygen-insufficient')
     expect(low.oxygenExcess).toBeLessThan(1)
-    expect(messageOf(low, 'oxygen-insufficient')).toMatch(/^Oxygen excess 1\.00 is below 1: raise the fill to ≥ \d\.\d\d MPa gauge \(maximum 4\.05 MPa gauge\) or reduce the sample to ≤ 0\.99 g\.$/)
+    expect(messageOf(low, 'oxygen-insufficient')).toMatch(/^Oxygen excess 0\.99 is below 1: raise the fill to ≥ \d\.\d\d MPa gauge \(maximum 4\.05 MPa gauge\) or reduce the sample to ≤ 0\.99 g\.$/)
   })
 
   it('needs approval below an excess of 3', () => {

@@ -1,0 +1,28 @@
+// The words Emberline uses for states, on every page and in every e-mail.
+import type { VesselState } from './domain/vessel-state'
+
+export const VESSEL_STATE_LABELS: Record<VesselState, string> = {
+  'in-service': 'In service',
+  'service-due': 'Service due soon',
+  'overdue': 'Service overdue',
+  'requalification-due': 'Requalification due',
+  'locked-out': 'Locked out',
+  'away': 'Away for requalification',
+  'awaiting-verification': 'Awaiting check run',
+  'retired': 'Retired',
+}
+
+export const RUN_STATUS_LABELS: Record<string, string> = {
+  'draft': 'Draft',
+  'ready': 'Ready to fire',
+  'awaiting-approval': 'Awaiting signature',
+  'blocked': 'Blocked',
+  'rejected': 'Rejected',
+  'fired': 'Fired',
+  'withdrawn': 'Withdrawn',
+}
+
+export const VESSEL_CLASS_LABELS: Record<string, string> = {
+  'standard': 'Standard',
+  'high-strength': 'High-strength',
+}
