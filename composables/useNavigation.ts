@@ -5,8 +5,13 @@ export interface NavItem { label: string, to: string, roles: Role[] | 'all' }
 
 export const NAV_ITEMS: NavItem[] = [
   { label: 'Today', to: '/', roles: 'all' },
+  { label: 'Quick check', to: '/check', roles: 'all' },
+  { label: 'Plans', to: '/plans', roles: ['analyst', 'supervisor'] },
+  { label: 'Approvals', to: '/approvals', roles: ['supervisor'] },
   { label: 'Vessels', to: '/vessels', roles: 'all' },
   { label: 'Audit', to: '/audit', roles: ['supervisor', 'admin'] },
+  // Supervisors own the lab policy (DESIGN.md §1) without being admins.
+  { label: 'Lab policy', to: '/admin/policy', roles: ['supervisor'] },
   { label: 'Admin', to: '/admin/users', roles: ['admin'] },
 ]
 

@@ -44,3 +44,13 @@ export function demoVessels(now = Date.now()) {
     },
   ]
 }
+
+/** The demo lab's own materials (invented clients and lots; figures are invented for the demo). */
+export const DEMO_MATERIALS = [
+  { name: 'Client coal KRC-2611 (bituminous blend)', category: 'coal', composition: { C: 72.1, H: 4.8, N: 1.5, S: 0.9, O: 8.2, ash: 12.5, moisture: 6.4 }, compositionBasis: 'dry' as const, notes: 'Monthly contract samples; composition from the client\'s ultimate analysis.' },
+  { name: 'Pine pellets lot P-44', category: 'biomass', composition: { C: 50.2, H: 6.1, N: 0.2, O: 43.1, ash: 0.4, moisture: 7.5 }, compositionBasis: 'dry' as const },
+  { name: 'Marine gas oil MG-9', category: 'liquid fuel', heatingValueJPerG: 45600, heatingValueUncertaintyJPerG: 120, heatingValueSource: 'Lab result 2026-10, duplicate mean' },
+  { name: 'Shredded packaging waste SW-3', category: 'waste fuel', composition: { C: 55.0, H: 7.5, N: 0.6, S: 0.2, O: 20.0, Cl: 1.2, ash: 15.5, moisture: 4.0 }, compositionBasis: 'dry' as const, notes: 'Contains PVC: check the vessel for corrosion after firing.' },
+  { name: 'Rolled oat flakes', category: 'food', heatingValueJPerG: 17800, heatingValueSource: 'Declared by the client' },
+  { name: 'Recovered propellant fines (client RP-1)', category: 'waste fuel', declaredHazard: 'energetic' as const, notes: 'Declared energetic by the client: high-strength vessel and a signed exception only.' },
+]

@@ -5,7 +5,8 @@ import { drizzle } from 'drizzle-orm/node-postgres'
 import pg from 'pg'
 import * as schema from '../server/database/schema'
 import { DEFAULT_POLICY } from '../shared/domain/policy'
-import { DEMO_LAB_NAME, DEMO_PASSWORD, DEMO_USERS, demoVessels } from '../data/demo-lab'
+import { DEMO_LAB_NAME, DEMO_MATERIALS, DEMO_PASSWORD, DEMO_USERS, demoVessels } from '../data/demo-lab'
+import { REFERENCE_MATERIALS } from '../data/reference-materials'
 
 const url = process.env.NUXT_DATABASE_URL
 if (!url) throw new Error('NUXT_DATABASE_URL is not set')
@@ -45,6 +46,11 @@ await db.transaction(async (tx) => {
     if (rows.length) {
       await tx.insert(schema.auditLog).values({ action: 'vessel.register', entity: 'vessel', entityId: rows[0]!.id, newValues: rows[0]!, reason: 'demo lab loaded' })
     }
+  }
+  const knownMaterials = new Set((await tx.select({ name: schema.materials.name }).from(schema.materials)).map(r => r.name))
+  for (const m of [...REFERENCE_MATERIALS, ...DEMO_MATERIALS].filter(m => !knownMaterials.has(m.name))) {
+    const [row] = await tx.insert(schema.materials).values(m).returning()
+    await tx.insert(schema.auditLog).values({ action: 'material.create', entity: 'material', entityId: row!.id, newValues: row!, reason: 'demo lab loaded' })
   }
 })
 await pool.end()

@@ -4,6 +4,11 @@ source "$(dirname "$0")/setup.sh"
 started=$(date +%s)
 ensure_deps
 setup_database emberline
+# Without a real SMTP server (NUXT_SMTP_HOST), mail goes to the built-in test mail server (admin → Mail).
+if [ -z "${NUXT_SMTP_HOST:-}" ]; then
+  bash "$ROOT/scripts/mail.sh" start || say "continuing without the test mail server; e-mail waits in the outbox"
+  export NUXT_SMTP_HOST=127.0.0.1 NUXT_SMTP_PORT="${EMBERLINE_FAKE_SMTP_PORT:-2525}"
+fi
 ensure_build
 export PORT="${PORT:-3000}"
 export NITRO_HOST="${HOST:-0.0.0.0}"

@@ -10,6 +10,9 @@ if [ -n "${EMBERLINE_TEST_DATABASE_URL:-}" ]; then
 else
   EMBERLINE_USE_GIVEN_DB=0 setup_database emberline_test fresh
 fi
+# The test database gets its own test mail server, apart from the demo lab's on 2525.
+EMBERLINE_FAKE_SMTP_PORT=2526 bash "$ROOT/scripts/mail.sh" start
+export NUXT_SMTP_HOST=127.0.0.1 NUXT_SMTP_PORT=2526
 
 if [ ! -x /usr/bin/chromium ]; then
   say "installing Debian's chromium for the browser tests"

@@ -32,7 +32,7 @@ export async function loadSessionUser(event: H3Event): Promise<AuthedUser | null
   }
   const user: AuthedUser = { id: row.id, email: row.email, name: row.name, roles: row.roles as Role[] }
   // Slide the idle window, at most once a minute, so that a busy page does not rewrite the cookie each request.
-  if (now - session.lastSeenAt > 60_000) await setUserSession(event, { user, lastSeenAt: now })
+  if (now - session.lastSeenAt > 60_000) await setUserSession(event, { user, epoch: session.epoch, loggedInAt: session.loggedInAt, lastSeenAt: now })
   return (event.context.user = user)
 }
 

@@ -121,7 +121,7 @@ export async function deliverDueMail(transport: MailTransport, from: string): Pr
   for (const m of claimed) {
     try {
       const info = await transport.sendMail({ from, to: m.to, subject: m.subject, text: m.text })
-      const refused = (info.rejected ?? []).map(a => (typeof a === 'string' ? a : a.address))
+      const refused = info.rejected ?? []
       await db.update(o)
         .set({ status: 'sent', sentAt: new Date(), lastError: refused.length ? `refused by the server: ${refused.join(', ')}` : null })
         .where(eq(o.id, m.id))

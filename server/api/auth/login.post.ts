@@ -26,7 +26,7 @@ export default defineEventHandler(async (event) => {
     .where(and(eq(schema.loginAttempts.ip, ip), eq(schema.loginAttempts.success, false), gt(schema.loginAttempts.at, since)))
   if ((byAccount?.n ?? 0) >= MAX_FAILURES_PER_ACCOUNT || (byAddress?.n ?? 0) >= MAX_FAILURES_PER_ADDRESS) {
     await db.transaction(tx => audit(tx, event, { action: 'auth.login-throttled', entity: 'user', newValues: { email, ip }, actor: null }))
-    setResponseHeader(event, 'Retry-After', String(WINDOW_MS / 1000))
+    setResponseHeader(event, 'Retry-After', WINDOW_MS / 1000)
     throw createError({ statusCode: 429, message: 'Too many failed sign-ins. Wait 15 minutes or ask an admin to reset the password.' })
   }
 

@@ -1,0 +1,29 @@
+import type { Assessment } from '#shared/domain/assessment'
+import type { RunComponent, RunStatus } from '#shared/schemas/plans'
+import type { VesselState } from '#shared/domain/vessel-state'
+
+// Shapes of the plan pages' server data (see server/utils/runs.ts and vessels.ts).
+export interface VesselSummary {
+  id: string, name: string, class: 'standard' | 'high-strength', state: VesselState, stateReasons: string[]
+  ratedEnergyJ: number, maxChargeMassG: number, maxFillPressureMPa: number, volumeMl: number
+  proofCharge: { massG: number, heatingValueJPerG: number, fillPressureMPa: number }
+}
+export interface Signature { id: string, signerName: string, meaning: string, reason: string, signedAt: string, current: boolean }
+export interface Run {
+  id: string, planId: string, seq: number, sampleCode: string, kind: 'sample' | 'standardisation' | 'check', vesselId: string, fillPressureMPa: number
+  components: RunComponent[], status: RunStatus, verdict: Assessment['verdict'], assessment: Assessment, chargeHash: string, note: string
+  plannedBy: string, signatures: Signature[]
+}
+export interface PlanDetail {
+  id: string, name: string, vesselId: string, fillPressureMPa: number, note: string, createdBy: string, createdByName: string, submittedAt: string | null, createdAt: string
+  runs: Run[], vessels: VesselSummary[]
+}
+export interface MaterialOption {
+  id: string, name: string, category: string, heatingValueJPerG: number | null, composition: unknown, compositionBasis: string | null
+  formula: string | null, smiles: string | null, declaredHazard: string, decompositionEnergyJPerG: number | null, typicalRange: { minJPerG: number, maxJPerG: number } | null
+}
+
+/** The whole materials library for pickers (names and the values a charge needs; no derived figures). */
+export function useMaterialOptions() {
+  return useFetch<{ rows: MaterialOption[] }>('/api/materials', { key: 'materials:options', query: { pageSize: 200, derived: '0' }, default: () => ({ rows: [] }) })
+}

@@ -1,0 +1,15 @@
+import { materialCreateSchema } from '#shared/schemas/materials'
+
+// The supervisor owns the materials library (DESIGN.md §1).
+export default defineEventHandler(async (event) => {
+  const user = await requireRole(event, 'supervisor')
+  const input = await parseBody(event, materialCreateSchema)
+  await checkMaterialChemistry(input)
+  const row = await useDb().transaction(async (tx) => {
+    const [created] = await tx.insert(schema.materials).values({ ...input, createdBy: user.id }).returning()
+    await audit(tx, event, { action: 'material.create', entity: 'material', entityId: created!.id, newValues: created })
+    return created!
+  })
+  setResponseStatus(event, 201)
+  return { ...materialView(row), derived: await materialDerived(row, await getPolicy()) }
+})

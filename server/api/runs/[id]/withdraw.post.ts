@@ -1,0 +1,19 @@
+import { eq } from 'drizzle-orm'
+import { z } from 'zod'
+
+const body = z.object({ reason: z.string().trim().max(1000).default('') }).strict()
+
+// A run that will not be fired is withdrawn, never deleted: the record stays.
+export default defineEventHandler(async (event) => {
+  await requireRole(event, 'analyst')
+  const { id } = parseParams(event, idParam)
+  const { reason } = await parseBody(event, body)
+  const run = await useDb().transaction(async (tx) => {
+    const before = await findRunOr404(tx, id, true)
+    if (before.status === 'fired' || before.status === 'withdrawn') throw createError({ statusCode: 409, message: `A ${before.status} run cannot be withdrawn.` })
+    const [row] = await tx.update(schema.runs).set({ status: 'withdrawn', updatedAt: new Date() }).where(eq(schema.runs.id, id)).returning()
+    await audit(tx, event, { action: 'run.withdraw', entity: 'run', entityId: id, oldValues: { status: before.status }, newValues: { status: 'withdrawn' }, reason })
+    return row!
+  })
+  return runView(run)
+})

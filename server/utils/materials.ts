@@ -1,0 +1,81 @@
+import { eq } from 'drizzle-orm'
+import { z } from 'zod'
+import { assessCharge, resolveComponents, ChargeInputError } from '#shared/domain/assessment'
+import { heatingValueFromComposition } from '#shared/domain/heating-value'
+import { componentFromMaterial } from '#shared/material-component'
+import type { Composition } from '#shared/domain/composition'
+import type { LabPolicy } from '#shared/domain/policy'
+import type { materials } from '../database/schema'
+
+export type MaterialRow = typeof materials.$inferSelect
+
+export const materialIdParam = z.object({ id: z.string().uuid('a material id (UUID)') })
+
+export async function findMaterialOr404(db: Db | Tx, id: string): Promise<MaterialRow> {
+  const [row] = await db.select().from(schema.materials).where(eq(schema.materials.id, id))
+  if (!row) throw createError({ statusCode: 404, message: 'No such material.' })
+  return row
+}
+
+// A notional 1 g charge in a generous vessel: only the per-gram figures of the material are read from it.
+const PROBE_VESSEL = { ratedEnergyJ: 1e6, maxChargeMassG: 100, maxFillPressureMPa: 10, volumeMl: 5000, class: 'high-strength' as const }
+
+/** Derived figures of a material: estimated heating value, oxygen demand per gram, oxygen balance, screening. */
+export async function materialDerived(m: MaterialRow, policy: LabPolicy) {
+  try {
+    const [resolved] = await resolveComponents([componentFromMaterial(m, { massG: 1 })])
+    const a = assessCharge({ vessel: PROBE_VESSEL, fillPressureMPa: 3, components: [resolved!] }, policy)
+    const comp = resolved!.resolved?.composition ?? resolved!.composition
+    const estimate = comp && (comp.C ?? 0) > 0 ? heatingValueFromComposition(comp) : null
+    const c = a.components[0]!
+    return {
+      ok: true as const,
+      heatingValueJPerG: c.heatingValueJPerG,
+      heatingValueSource: c.heatingValueSource,
+      estimatedHeatingValueJPerG: estimate?.hhvAsFiredJPerG ?? null,
+      correlationOutOfRange: estimate?.violations.map(v => `${v.field} ${v.value.toFixed(1)} % outside ${v.min}–${v.max} %`) ?? [],
+      oxygenDemandMolPerG: c.oxygenDemandMol,
+      oxygenBalancePct: c.oxygenBalancePct ?? c.screening?.oxygenBalancePct ?? null,
+      screening: c.screening ?? null,
+      formula: resolved!.resolved?.formula ?? null,
+    }
+  }
+  catch (err) {
+    if (err instanceof ChargeInputError) return { ok: false as const, problem: err.message }
+    throw err
+  }
+}
+
+export function materialView(m: MaterialRow) {
+  return {
+    id: m.id,
+    name: m.name,
+    category: m.category,
+    heatingValueJPerG: m.heatingValueJPerG,
+    heatingValueUncertaintyJPerG: m.heatingValueUncertaintyJPerG,
+    heatingValueSource: m.heatingValueSource,
+    typicalRange: m.typicalRange as { minJPerG: number, maxJPerG: number, note?: string } | null,
+    composition: m.composition as Composition | null,
+    compositionBasis: m.compositionBasis,
+    formula: m.formula,
+    smiles: m.smiles,
+    declaredHazard: m.declaredHazard,
+    decompositionEnergyJPerG: m.decompositionEnergyJPerG,
+    notes: m.notes,
+    reference: m.reference,
+    active: m.active,
+    updatedAt: m.updatedAt,
+  }
+}
+
+/** Formula and structure must be readable before a material is saved (422 naming the field otherwise). */
+export async function checkMaterialChemistry(input: { formula?: string | null, smiles?: string | null }) {
+  if (!input.formula && !input.smiles) return
+  try {
+    await resolveComponents([{ role: 'sample', massG: 1, ...(input.formula ? { formula: input.formula } : {}), ...(input.smiles ? { smiles: input.smiles } : {}) }])
+  }
+  catch (err) {
+    if (err instanceof ChargeInputError) invalidInput(err.issues.map(i => ({ path: String(i.path[i.path.length - 1] ?? 'formula'), message: i.message })))
+    throw err
+  }
+}

@@ -1,0 +1,122 @@
+import { createHash } from 'node:crypto'
+import { asc, eq, inArray } from 'drizzle-orm'
+import { z } from 'zod'
+import { assess, chargeInputSchema, ChargeInputError } from '#shared/domain/assessment'
+import type { Assessment, ChargeComponentInput } from '#shared/domain/assessment'
+import type { LabPolicy } from '#shared/domain/policy'
+import { componentFromMaterial } from '#shared/material-component'
+import type { RunComponent, RunStatus } from '#shared/schemas/plans'
+import type { plans, runs } from '../database/schema'
+
+export type RunRow = typeof runs.$inferSelect
+export type PlanRow = typeof plans.$inferSelect
+
+export const idParam = z.object({ id: z.string().uuid('an id (UUID)') })
+
+/** The verdict decides where a submitted run goes (DESIGN.md §3, issue 4). */
+export function statusForVerdict(verdict: Assessment['verdict']): RunStatus {
+  return verdict === 'clear' ? 'ready' : verdict === 'needs-approval' ? 'awaiting-approval' : 'blocked'
+}
+
+/** Fills each component from its material and turns a run into a charge for the assessment. */
+export async function buildCharge(db: Db | Tx, components: RunComponent[]): Promise<ChargeComponentInput[]> {
+  const ids = [...new Set(components.flatMap(c => c.materialId ? [c.materialId] : []))]
+  const found = ids.length ? await db.select().from(schema.materials).where(inArray(schema.materials.id, ids)) : []
+  const byId = new Map(found.map(m => [m.id, m]))
+  const issues: { path: string, message: string }[] = []
+  const out = components.map((c, i) => {
+    const { materialId, ...rest } = c
+    if (!materialId) return rest as ChargeComponentInput
+    const m = byId.get(materialId)
+    if (!m) {
+      issues.push({ path: `components.${i}.materialId`, message: 'no such material' })
+      return rest as ChargeComponentInput
+    }
+    return componentFromMaterial(m, rest, c.role)
+  })
+  if (issues.length) invalidInput(issues)
+  return out
+}
+
+/** Assesses a run on the server (authoritative) against its vessel as it stands now. */
+export async function assessRun(db: Db | Tx, input: { vessel: VesselView, fillPressureMPa: number, components: RunComponent[], kind: string }, policy: LabPolicy) {
+  const components = await buildCharge(db, input.components)
+  const parsed = chargeInputSchema.safeParse({
+    vessel: assessmentVessel(input.vessel),
+    fillPressureMPa: input.fillPressureMPa,
+    components,
+    runRole: input.kind,
+  })
+  if (!parsed.success) invalidInput(parsed.error.issues)
+  try {
+    const assessment = await assess(parsed.data, policy)
+    return { assessment, chargeHash: chargeHash(input.vessel.id, input.fillPressureMPa, input.components, assessment) }
+  }
+  catch (err) {
+    if (err instanceof ChargeInputError) invalidInput(err.issues.map(i => ({ path: i.path.join('.'), message: i.message })))
+    throw err
+  }
+}
+
+/** Binds a signature to the charge and its assessment: any change to either changes the hash. */
+export function chargeHash(vesselId: string, fillPressureMPa: number, components: RunComponent[], a: Assessment) {
+  const material = JSON.stringify({ vesselId, fillPressureMPa, components, verdict: a.verdict, findings: a.findings.map(f => [f.code, f.severity, f.message]) })
+  return createHash('sha256').update(material).digest('hex')
+}
+
+export async function findRunOr404(db: Db | Tx, id: string, lock = false): Promise<RunRow> {
+  const q = db.select().from(schema.runs).where(eq(schema.runs.id, id))
+  const [row] = lock ? await q.for('update') : await q
+  if (!row) throw createError({ statusCode: 404, message: 'No such run.' })
+  return row
+}
+
+export async function findPlanOr404(db: Db | Tx, id: string, lock = false): Promise<PlanRow> {
+  const q = db.select().from(schema.plans).where(eq(schema.plans.id, id))
+  const [row] = lock ? await q.for('update') : await q
+  if (!row) throw createError({ statusCode: 404, message: 'No such plan.' })
+  return row
+}
+
+type SignatureRow = typeof schema.signatures.$inferSelect
+
+export function runView(r: RunRow, signatures: SignatureRow[] = []) {
+  return {
+    id: r.id,
+    planId: r.planId,
+    seq: r.seq,
+    sampleCode: r.sampleCode,
+    kind: r.kind,
+    vesselId: r.vesselId,
+    fillPressureMPa: r.fillPressureMPa,
+    components: r.components as RunComponent[],
+    status: r.status as RunStatus,
+    verdict: r.verdict,
+    assessment: r.assessment as Assessment,
+    chargeHash: r.chargeHash,
+    note: r.note,
+    plannedBy: r.plannedBy,
+    createdAt: r.createdAt,
+    updatedAt: r.updatedAt,
+    signatures: signatures.map(s => ({ id: s.id, signerName: s.signerName, meaning: s.meaning, reason: s.reason, signedAt: s.signedAt, current: s.boundHash === r.chargeHash })),
+  }
+}
+
+export async function signaturesFor(db: Db | Tx, runIds: string[]) {
+  if (!runIds.length) return new Map<string, SignatureRow[]>()
+  const rows = await db.select().from(schema.signatures).where(inArray(schema.signatures.entityId, runIds)).orderBy(asc(schema.signatures.signedAt))
+  const map = new Map<string, SignatureRow[]>()
+  for (const s of rows) map.set(s.entityId, [...(map.get(s.entityId) ?? []), s])
+  return map
+}
+
+/** Re-authentication for an electronic signature: the signer's own password, checked again (audited on failure). */
+export async function verifySigner(event: Parameters<typeof requireUser>[0], userId: string, password: string, entity: string, entityId: string) {
+  const db = useDb()
+  const [u] = await db.select().from(schema.users).where(eq(schema.users.id, userId))
+  if (!u || !await verifyPassword(u.passwordHash, password)) {
+    await db.transaction(tx => audit(tx, event, { action: 'signature.password-wrong', entity, entityId }))
+    throw createError({ statusCode: 403, message: 'The password is wrong: nothing was signed.', data: { fields: [{ path: 'password', message: 'wrong password' }] } })
+  }
+  return u
+}

@@ -1,0 +1,40 @@
+import { z } from 'zod'
+
+export const MATERIAL_CATEGORIES = [
+  'coal', 'coke', 'biomass', 'liquid fuel', 'waste fuel', 'food', 'feed', 'polymer', 'reference standard', 'combustion aid', 'chemical', 'other',
+] as const
+
+const pct = z.number().min(0).max(100)
+export const materialCompositionSchema = z.object({
+  C: pct.optional(), H: pct.optional(), N: pct.optional(), S: pct.optional(), O: pct.optional(), Cl: pct.optional(), ash: pct.optional(), moisture: pct.optional(),
+}).strict().refine((c) => {
+  const sum = Object.values(c).reduce<number>((a, b) => a + (b ?? 0), 0)
+  return sum <= 100.5
+}, { message: 'The composition parts add up to more than 100 %' })
+
+const fields = {
+  name: z.string().trim().min(1, 'required').max(160),
+  category: z.enum(MATERIAL_CATEGORIES),
+  heatingValueJPerG: z.number().positive().max(200_000).nullable().optional(),
+  heatingValueUncertaintyJPerG: z.number().min(0).max(50_000).nullable().optional(),
+  heatingValueSource: z.string().trim().max(500).nullable().optional(),
+  typicalRange: z.object({ minJPerG: z.number().positive().max(200_000), maxJPerG: z.number().positive().max(200_000), note: z.string().max(300).optional() }).strict()
+    .refine(r => r.minJPerG <= r.maxJPerG, { message: 'minimum above maximum' }).nullable().optional(),
+  composition: materialCompositionSchema.nullable().optional(),
+  compositionBasis: z.enum(['dry', 'as-received', 'air-dried']).nullable().optional(),
+  formula: z.string().trim().min(1).max(200).nullable().optional(),
+  smiles: z.string().trim().min(1).max(2000).nullable().optional(),
+  declaredHazard: z.enum(['none', 'energetic', 'oxidiser']).default('none'),
+  decompositionEnergyJPerG: z.number().min(0).max(100_000).nullable().optional(),
+  notes: z.string().trim().max(4000).default(''),
+}
+
+export const materialCreateSchema = z.object(fields).strict()
+
+export const materialPatchSchema = z.object({
+  ...Object.fromEntries(Object.entries(fields).map(([k, v]) => [k, (v as z.ZodType).optional()])) as { [K in keyof typeof fields]: z.ZodOptional<typeof fields[K]> },
+  active: z.boolean().optional(),
+  reason: z.string().trim().min(3, 'say why the material record changes').max(1000),
+}).strict()
+
+export type MaterialCreate = z.infer<typeof materialCreateSchema>
