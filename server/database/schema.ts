@@ -234,3 +234,54 @@ export const capturedMail = pgTable('captured_mail', {
   text: text('text').notNull(),
   receivedAt: timestamp('received_at', { withTimezone: true }).notNull().defaultNow(),
 }, t => [index('captured_mail_received_idx').on(t.receivedAt)])
+
+// ─── Results (issue 5): one row per revision; a signed result changes only through a new revision ──
+export const results = pgTable('results', {
+  id: id(),
+  runId: uuid('run_id').notNull().references(() => runs.id),
+  firingId: uuid('firing_id').notNull().references(() => firings.id),
+  vesselId: uuid('vessel_id').notNull().references(() => vessels.id),
+  sampleCode: text('sample_code').notNull(),
+  kind: text('kind').notNull(), // 'sample' | 'standardisation' | 'check'
+  revision: integer('revision').notNull().default(1),
+  supersedesId: uuid('supersedes_id'),
+  current: boolean('current').notNull().default(true),
+  inputs: jsonb('inputs').notNull(),
+  values: jsonb('values').notNull(),
+  energyEquivalentId: uuid('energy_equivalent_id'),
+  status: text('status').notNull().default('unsigned'), // 'unsigned' | 'signed'
+  signatureId: uuid('signature_id'),
+  reason: text('reason'),
+  createdBy: uuid('created_by').notNull().references(() => users.id),
+  createdAt: createdAt(),
+}, t => [
+  index('results_sample_idx').on(t.sampleCode, t.current),
+  index('results_vessel_idx').on(t.vesselId, t.kind, t.createdAt),
+  index('results_run_idx').on(t.runId),
+])
+
+// The accepted energy equivalent of the calorimeter with a vessel, from a standardisation series.
+export const energyEquivalents = pgTable('energy_equivalents', {
+  id: id(),
+  vesselId: uuid('vessel_id').notNull().references(() => vessels.id),
+  valueJPerK: doublePrecision('value_j_per_k').notNull(),
+  standardDeviationJPerK: doublePrecision('standard_deviation_j_per_k').notNull(),
+  relativeStandardDeviationPct: doublePrecision('relative_standard_deviation_pct').notNull(),
+  runs: integer('runs').notNull(),
+  resultIds: jsonb('result_ids').notNull(),
+  meanEnergyJ: doublePrecision('mean_energy_j'),
+  acceptedBy: uuid('accepted_by').notNull().references(() => users.id),
+  acceptedAt: timestamp('accepted_at', { withTimezone: true }).notNull().defaultNow(),
+  active: boolean('active').notNull().default(true),
+}, t => [index('energy_equivalents_vessel_idx').on(t.vesselId, t.acceptedAt)])
+
+// Certificates of analysis: a unique, never reused report number per issued certificate.
+export const reports = pgTable('reports', {
+  id: id(),
+  reportNumber: integer('report_number').generatedAlwaysAsIdentity({ startWith: 1001 }).unique(),
+  sampleCode: text('sample_code').notNull(),
+  resultIds: jsonb('result_ids').notNull(),
+  content: jsonb('content').notNull(),
+  issuedBy: uuid('issued_by').notNull().references(() => users.id),
+  issuedAt: timestamp('issued_at', { withTimezone: true }).notNull().defaultNow(),
+})
