@@ -9,6 +9,7 @@ export const NAV_ITEMS: NavItem[] = [
   { label: 'Plans', to: '/plans', roles: ['analyst', 'supervisor'] },
   { label: 'Approvals', to: '/approvals', roles: ['supervisor'] },
   { label: 'Vessels', to: '/vessels', roles: 'all' },
+  { label: 'Materials', to: '/materials', roles: 'all' },
   { label: 'Audit', to: '/audit', roles: ['supervisor', 'admin'] },
   // Supervisors own the lab policy (DESIGN.md §1) without being admins.
   { label: 'Lab policy', to: '/admin/policy', roles: ['supervisor'] },

@@ -1,6 +1,7 @@
 // CSV (or pasted spreadsheet) rows of a batch → run inputs, with row-level errors that say what to fix.
 import Papa from 'papaparse'
 import type { RunComponent, RunInput } from './schemas/plans'
+import { compositionProblems } from './domain/composition'
 
 export const IMPORT_COLUMNS = [
   'sample_code', 'kind', 'material', 'mass_g', 'heating_value_j_per_g', 'formula', 'C', 'H', 'N', 'S', 'O', 'Cl', 'ash', 'moisture',
@@ -77,9 +78,8 @@ export function parsePlanImport(text: string, materials: MaterialRef[], vessels:
       if (v !== undefined) composition[k] = v
     }
     if (Object.keys(composition).length) {
-      const sum = Object.values(composition).reduce((a, b) => a + b, 0)
-      if (sum > 100.5) errors.push(`the composition adds up to ${sum.toFixed(1)} %, above 100 %`)
       sample.composition = { ...composition, basis: 'dry' }
+      errors.push(...compositionProblems(sample.composition).map(p => `composition: ${p}`))
     }
     const hazard = (r.declared_hazard ?? '').trim()
     if (hazard) {

@@ -29,7 +29,9 @@ export default defineNitroPlugin((nitroApp) => {
       lastProblem = ''
     }
     catch (err) {
-      logProblem((err as Error)?.message ?? String(err))
+      // Drizzle wraps the driver's error with the whole SQL text; the cause says what went wrong.
+      const e = err as Error & { cause?: Error }
+      logProblem(e?.cause?.message || e?.message || String(err))
     }
     finally {
       if (!stopped) {

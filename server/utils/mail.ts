@@ -57,7 +57,8 @@ export async function enqueueMail(tx: Tx, mail: OutgoingMail): Promise<boolean> 
     })
   }
   catch (err) {
-    console.error('[mail] could not enqueue a message:', (err as Error).message)
+    const e = err as Error & { cause?: Error }
+    console.error('[mail] could not enqueue a message:', e.cause?.message ?? e.message)
     return false
   }
 }

@@ -1,4 +1,6 @@
 import { z } from 'zod'
+import { compositionProblems } from '../domain/composition'
+import type { CompositionBasis } from '../domain/composition'
 
 export const MATERIAL_CATEGORIES = [
   'coal', 'coke', 'biomass', 'liquid fuel', 'waste fuel', 'food', 'feed', 'polymer', 'reference standard', 'combustion aid', 'chemical', 'other',
@@ -7,10 +9,15 @@ export const MATERIAL_CATEGORIES = [
 const pct = z.number().min(0).max(100)
 export const materialCompositionSchema = z.object({
   C: pct.optional(), H: pct.optional(), N: pct.optional(), S: pct.optional(), O: pct.optional(), Cl: pct.optional(), ash: pct.optional(), moisture: pct.optional(),
-}).strict().refine((c) => {
-  const sum = Object.values(c).reduce<number>((a, b) => a + (b ?? 0), 0)
-  return sum <= 100.5
-}, { message: 'The composition parts add up to more than 100 %' })
+}).strict()
+
+/** The composition's parts must not add up past 100 % on its basis (moisture apart on the dry basis). */
+function checkComposition(v: { composition?: Record<string, number | undefined> | null, compositionBasis?: string | null }, ctx: z.RefinementCtx) {
+  if (!v.composition) return
+  for (const message of compositionProblems({ ...v.composition, basis: (v.compositionBasis ?? 'dry') as CompositionBasis })) {
+    ctx.addIssue({ code: 'custom', path: ['composition'], message })
+  }
+}
 
 const fields = {
   name: z.string().trim().min(1, 'required').max(160),
@@ -29,12 +36,12 @@ const fields = {
   notes: z.string().trim().max(4000).default(''),
 }
 
-export const materialCreateSchema = z.object(fields).strict()
+export const materialCreateSchema = z.object(fields).strict().superRefine(checkComposition)
 
 export const materialPatchSchema = z.object({
   ...Object.fromEntries(Object.entries(fields).map(([k, v]) => [k, (v as z.ZodType).optional()])) as { [K in keyof typeof fields]: z.ZodOptional<typeof fields[K]> },
   active: z.boolean().optional(),
   reason: z.string().trim().min(3, 'say why the material record changes').max(1000),
-}).strict()
+}).strict().superRefine(checkComposition)
 
 export type MaterialCreate = z.infer<typeof materialCreateSchema>

@@ -30,5 +30,6 @@ export default defineEventHandler(async (event) => {
     })
     return row!
   })
-  return runView(run)
+  const sigs = await signaturesFor(useDb(), [id])
+  return runView(run, sigs.get(id))
 })

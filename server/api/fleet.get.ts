@@ -1,0 +1,51 @@
+import { asc, count, desc, eq } from 'drizzle-orm'
+
+// Vessels a technician should look at first, most urgent first.
+const ATTENTION: Record<string, number> = { 'locked-out': 0, 'overdue': 1, 'requalification-due': 2, 'awaiting-verification': 3, 'service-due': 4, 'away': 5 }
+const QUEUE_ROWS = 20
+
+// Today (issue 6): every vessel with its state, counters and service forecast, and the queues of the caller's roles.
+export default defineEventHandler(async (event) => {
+  const user = await requireUser(event)
+  const db = useDb()
+  const now = new Date()
+  const [rows, policy] = await Promise.all([db.select().from(schema.vessels).orderBy(asc(schema.vessels.name)), getPolicy()])
+  const recent = await firingsSince(db, rows.map(r => r.id), new Date(now.getTime() - FORECAST_WINDOW_DAYS * 86_400_000))
+  const vessels = rows.map((r) => {
+    const view = vesselView(r, policy, now)
+    return { ...view, forecast: serviceForecast(view, recent.get(r.id) ?? 0, now) }
+  })
+
+  const runList = (status: string, order: 'oldest' | 'plan') => db.select({
+    id: schema.runs.id, planId: schema.runs.planId, seq: schema.runs.seq, sampleCode: schema.runs.sampleCode, kind: schema.runs.kind,
+    status: schema.runs.status, verdict: schema.runs.verdict, fillPressureMPa: schema.runs.fillPressureMPa, updatedAt: schema.runs.updatedAt,
+    plannedBy: schema.runs.plannedBy, planName: schema.plans.name, plannerName: schema.users.name, vesselId: schema.runs.vesselId, vesselName: schema.vessels.name,
+  }).from(schema.runs)
+    .innerJoin(schema.plans, eq(schema.plans.id, schema.runs.planId))
+    .innerJoin(schema.users, eq(schema.users.id, schema.runs.plannedBy))
+    .innerJoin(schema.vessels, eq(schema.vessels.id, schema.runs.vesselId))
+    .where(eq(schema.runs.status, status))
+    .orderBy(...(order === 'oldest' ? [asc(schema.runs.updatedAt)] : [desc(schema.plans.createdAt), asc(schema.runs.seq)]))
+    .limit(QUEUE_ROWS)
+  const runCount = async (status: string) => (await db.select({ n: count() }).from(schema.runs).where(eq(schema.runs.status, status)))[0]?.n ?? 0
+  type QueueRun = Awaited<ReturnType<typeof runList>>[number] & { ownRun: boolean }
+
+  const queues: {
+    approvals?: { count: number, runs: QueueRun[] }
+    ready?: { count: number, runs: QueueRun[] }
+    attention?: { count: number, vessels: typeof vessels }
+  } = {}
+  if (hasRole(user, 'supervisor')) {
+    const [list, n] = await Promise.all([runList('awaiting-approval', 'oldest'), runCount('awaiting-approval')])
+    queues.approvals = { count: n, runs: list.map(r => ({ ...r, ownRun: r.plannedBy === user.id })) }
+  }
+  if (hasRole(user, 'analyst')) {
+    const [list, n] = await Promise.all([runList('ready', 'plan'), runCount('ready')])
+    queues.ready = { count: n, runs: list.map(r => ({ ...r, ownRun: r.plannedBy === user.id })).sort((a, b) => Number(b.ownRun) - Number(a.ownRun)) }
+  }
+  if (hasRole(user, 'technician')) {
+    const list = vessels.filter(v => v.state in ATTENTION).sort((a, b) => ATTENTION[a.state]! - ATTENTION[b.state]! || a.name.localeCompare(b.name))
+    queues.attention = { count: list.length, vessels: list }
+  }
+  return { generatedAt: now, forecastWindowDays: FORECAST_WINDOW_DAYS, vessels, queues }
+})
