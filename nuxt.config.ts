@@ -26,7 +26,7 @@ export default defineNuxtConfig({
     session: {
       name: 'emberline-session',
       password: '',
-      cookie: { sameSite: 'lax', httpOnly: true },
+      cookie: { sameSite: 'lax', httpOnly: true, secure: true },
       maxAge: 60 * 60 * 12,
     },
     smtp: { host: '127.0.0.1', port: 2525, secure: false, user: '', pass: '', from: 'Emberline <no-reply@emberline.test>' },
@@ -39,5 +39,14 @@ export default defineNuxtConfig({
   ...(buildRoot ? { buildDir: `${buildRoot}/.nuxt` } : {}),
   nitro: {
     ...(buildRoot ? { output: { dir: `${buildRoot}/.output` } } : {}),
+    // Photos and certificates of servicing records, read through useStorage('uploads') (server/utils/uploads.ts).
+    // Default: the filesystem under .data/uploads (git-ignored), relative to the folder the server starts in;
+    // EMBERLINE_UPLOAD_DIR moves it, at build or at start. For an S3-compatible store: add the aws4fetch package
+    // (unstorage's s3 driver needs it) and, in a server plugin, unmount 'uploads' and mount unstorage/drivers/s3 with
+    // bucket, endpoint, region and keys read from process.env at start (this entry is written into the build, so
+    // keys never go here); leave EMBERLINE_UPLOAD_DIR unset, as it always means the filesystem.
+    storage: {
+      uploads: { driver: 'fs', base: process.env.EMBERLINE_UPLOAD_DIR || './.data/uploads' },
+    },
   },
 })

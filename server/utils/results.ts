@@ -2,6 +2,7 @@
 // standardisation run, agreement of a check run; revisions, sign-off and duplicate agreement.
 import { createHash } from 'node:crypto'
 import { and, asc, desc, eq, inArray } from 'drizzle-orm'
+import type { SQL } from 'drizzle-orm'
 import { z } from 'zod'
 import { resolveComponents } from '#shared/domain/assessment'
 import type { ChargeComponentInput, ResolvedChemistry } from '#shared/domain/assessment'
@@ -92,6 +93,28 @@ export const resultInputSchema = z.object(resultFields).strict().superRefine(che
 export type ResultInputs = z.output<typeof resultInputSchema>
 
 export const resultReviseSchema = z.object({ ...resultFields, reason: z.string().trim().min(3, 'say why the result is revised').max(2000) }).strict().superRefine(checkInputs)
+
+const blankToUndefined = (v: unknown) => (typeof v === 'string' && v.trim() === '' ? undefined : v)
+/** Filters of the results list and its CSV export. */
+export const resultListQuery = z.object({
+  sampleCode: z.preprocess(blankToUndefined, z.string().trim().max(80).optional()),
+  vesselId: z.preprocess(blankToUndefined, z.string().uuid('a vessel id (UUID)').optional()),
+  kind: z.preprocess(blankToUndefined, z.enum(['sample', 'standardisation', 'check']).optional()),
+  status: z.preprocess(blankToUndefined, z.enum(['unsigned', 'signed']).optional()),
+  includeSuperseded: z.preprocess(blankToUndefined, z.enum(['0', '1']).default('0')),
+  limit: z.coerce.number().int('a whole number').min(1).max(1000, 'at most 1000').default(200),
+})
+
+export function resultListWhere(q: z.output<typeof resultListQuery>) {
+  const r = schema.results
+  const where: SQL[] = []
+  if (q.sampleCode) where.push(eq(r.sampleCode, q.sampleCode))
+  if (q.vesselId) where.push(eq(r.vesselId, q.vesselId))
+  if (q.kind) where.push(eq(r.kind, q.kind))
+  if (q.status) where.push(eq(r.status, q.status))
+  if (q.includeSuperseded === '0') where.push(eq(r.current, true))
+  return and(...where)
+}
 
 export const resultIdParam = z.object({ id: z.string().uuid('a result id (UUID)') })
 
@@ -455,7 +478,7 @@ function basesAndNet(grossAd: number, a: ResultValues['analysis'], missing: stri
 }
 
 /** Loads what a result of this run needs: the firing, the weighed charge resolved, the active ε and the aid's uncertainty. */
-export async function resultContext(db: Db | Tx, run: RunRow, policy: LabPolicy) {
+export async function resultContext(db: Db | Tx, run: RunRow, policy: LabPolicy, energyEquivalentId?: string | null) {
   const [firing] = await db.select().from(schema.firings).where(eq(schema.firings.runId, run.id))
   if (!firing) throw createError({ statusCode: 409, message: `Run ${run.sampleCode} has not been fired yet: record the firing first.` })
   if (firing.outcome !== 'complete') {
@@ -477,7 +500,8 @@ export async function resultContext(db: Db | Tx, run: RunRow, policy: LabPolicy)
     aidUncertaintyJPerG = m?.u ?? null
   }
   const kind = run.kind as ResultKind
-  const energy = kind === 'standardisation' ? null : await activeEnergyEquivalent(db, run.vesselId)
+  // A revision keeps the ε that was in force for its firing; a first result takes the vessel's active ε.
+  const energy = kind === 'standardisation' ? null : energyEquivalentId ? await energyEquivalentById(db, energyEquivalentId) : await activeEnergyEquivalent(db, run.vesselId)
   if (kind !== 'standardisation' && !energy) {
     const [v] = await db.select({ name: schema.vessels.name }).from(schema.vessels).where(eq(schema.vessels.id, run.vesselId))
     throw createError({
@@ -494,6 +518,11 @@ export async function activeEnergyEquivalent(db: Db | Tx, vesselId: string): Pro
   const [row] = await db.select().from(schema.energyEquivalents)
     .where(and(eq(schema.energyEquivalents.vesselId, vesselId), eq(schema.energyEquivalents.active, true)))
     .orderBy(desc(schema.energyEquivalents.acceptedAt)).limit(1)
+  return row ?? null
+}
+
+async function energyEquivalentById(db: Db | Tx, id: string): Promise<EnergyEquivalentRow | null> {
+  const [row] = await db.select().from(schema.energyEquivalents).where(eq(schema.energyEquivalents.id, id))
   return row ?? null
 }
 

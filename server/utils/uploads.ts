@@ -1,6 +1,7 @@
 // Photos and certificates attached to servicing records (issue 6), kept through Nitro's storage layer
 // (mount `uploads`, nuxt.config.ts → nitro.storage). The type is read from the content, never the name.
 import { randomUUID } from 'node:crypto'
+import { and, inArray, isNull, lt } from 'drizzle-orm'
 import fsDriver from 'unstorage/drivers/fs'
 import type { attachments } from '../database/schema'
 
@@ -82,6 +83,25 @@ export async function uploadStorage() {
     await remount
   }
   return useStorage('uploads')
+}
+
+/** Uploads never named by a record within this time are removed (the technician gave up the form). */
+export const ORPHAN_UPLOAD_HOURS = 24
+
+/** Removes uploads that no record took up within ORPHAN_UPLOAD_HOURS: the row, then its stored file. */
+export async function discardOrphanUploads(now = new Date()): Promise<number> {
+  const a = schema.attachments
+  const cutoff = new Date(now.getTime() - ORPHAN_UPLOAD_HOURS * 3_600_000)
+  const gone = await useDb().transaction(async (tx) => {
+    const rows = await tx.select().from(a).where(and(isNull(a.serviceId), lt(a.createdAt, cutoff))).limit(200).for('update', { skipLocked: true })
+    if (!rows.length) return []
+    await tx.delete(a).where(and(inArray(a.id, rows.map(r => r.id)), isNull(a.serviceId)))
+    await audit(tx, null, { action: 'attachment.discard', entity: 'attachment', entityId: null, oldValues: rows.map(r => ({ id: r.id, fileName: r.fileName, storageKey: r.storageKey })), reason: `not part of any servicing record after ${ORPHAN_UPLOAD_HOURS} h` })
+    return rows
+  })
+  const storage = await uploadStorage()
+  await Promise.allSettled(gone.map(r => storage.removeItem(r.storageKey)))
+  return gone.length
 }
 
 /** What the API shows of an attachment (the storage key stays on the server). */
