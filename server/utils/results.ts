@@ -16,6 +16,7 @@ import {
 } from '#shared/domain/results'
 import type { Basis, BasisConditions, CorrectionEstimate, DuplicateAssessment, UncertaintyBudget } from '#shared/domain/results'
 import type { RunComponent } from '#shared/schemas/plans'
+import type { CertificateContent, CertificateRow } from './certificate'
 
 export type ResultRow = typeof schema.results.$inferSelect
 export type EnergyEquivalentRow = typeof schema.energyEquivalents.$inferSelect
@@ -73,7 +74,7 @@ const resultFields = {
   note: z.string().trim().max(2000).default(''),
 }
 
-type RawInputs = { [K in keyof typeof resultFields]: z.output<(typeof resultFields)[K]> }
+type RawInputs = z.output<z.ZodObject<typeof resultFields>>
 
 function checkInputs(v: RawInputs, ctx: z.RefinementCtx) {
   if (v.temperatureRiseK === undefined && !v.thermogram) ctx.addIssue({ code: 'custom', path: ['temperatureRiseK'], message: 'give the corrected temperature rise or a thermogram' })
@@ -178,7 +179,8 @@ class ResultInputError extends Error {
 /** Analytical figures of the sample on the dry basis from its composition, where the inputs leave them out. */
 function compositionDry(components: ResultContext['components']): Composition | null {
   const sample = components.find(c => c.role === 'sample')
-  const comp = sample?.composition ?? sample?.resolved?.composition
+  // A composition from a formula is complete: an element it does not hold is 0 %, not unknown.
+  const comp = sample?.composition ?? (sample?.resolved ? { N: 0, S: 0, O: 0, H: 0, ash: 0, ...sample.resolved.composition } : undefined)
   if (!comp) return null
   try {
     return toDryBasis(comp)
@@ -670,3 +672,99 @@ export async function duplicateSummaries(db: Db | Tx, sampleCodes: string[], pol
     .orderBy(asc(schema.results.createdAt))
   return Object.fromEntries(codes.map(c => [c, duplicateSummary(c, rows, policy)]))
 }
+
+const BASIS_LABEL: Record<Basis, string> = { 'as-received': 'as received', 'air-dried': 'as determined', 'dry': 'dry', 'dry-ash-free': 'dry, ash-free' }
+const BASIS_ORDER: Basis[] = ['as-received', 'air-dried', 'dry', 'dry-ash-free']
+
+/**
+ * The content of a certificate for one sample: only when every current determination is signed off and the
+ * determinations agree (or a single one, or a flagged median, said so on the certificate). 409 otherwise.
+ */
+export async function certificateContent(db: Db | Tx, sampleCode: string, issuer: { name: string }): Promise<{ content: CertificateContent, resultIds: string[] }> {
+  const { labName, policy } = await getLabSettings()
+  const rows = await db.select().from(schema.results)
+    .where(and(eq(schema.results.sampleCode, sampleCode), eq(schema.results.current, true), eq(schema.results.kind, 'sample')))
+    .orderBy(asc(schema.results.createdAt))
+  if (!rows.length) throw createError({ statusCode: 404, message: `There are no sample results for ${sampleCode}.` })
+  const unsigned = rows.filter(r => r.status !== 'signed')
+  if (unsigned.length) {
+    throw createError({ statusCode: 409, message: `Only signed results can be certified: ${unsigned.length} of the ${rows.length} current results of ${sampleCode} are not signed off yet.`, data: { unsigned: unsigned.map(r => r.id) } })
+  }
+  const dup = duplicateSummary(sampleCode, rows, policy)
+  if (dup.status === 'third-determination-needed' || dup.status === 'review-needed') {
+    throw createError({ statusCode: 409, message: `${dup.message} A certificate is issued once the determinations agree.`, data: { duplicate: dup } })
+  }
+  const views = await loadResultViews(db, rows)
+  const run = await findRunOr404(db, rows[0]!.runId)
+  const sample = (run.components as RunComponent[]).find(c => c.role === 'sample')
+  let description = sample?.name ?? null
+  if (sample?.materialId) {
+    const [m] = await db.select({ name: schema.materials.name }).from(schema.materials).where(eq(schema.materials.id, sample.materialId))
+    description = m?.name ?? description
+  }
+  const first = views[0]!.values
+  const uAd = dup.reported.expandedUncertaintyJPerG
+  const grossAd = dup.reported.grossJPerG['air-dried']
+  const certRows: CertificateRow[] = []
+  for (const b of BASIS_ORDER) {
+    const v = dup.reported.grossJPerG[b]
+    // The relative uncertainty carries over to the other bases (the moisture and ash figures are taken as exact).
+    if (v !== undefined) certRows.push({ quantity: 'Gross calorific value at constant volume', basis: BASIS_LABEL[b], valueJPerG: v, expandedUncertaintyJPerG: uAd !== null && grossAd ? (uAd * v) / grossAd : null })
+  }
+  for (const b of BASIS_ORDER) {
+    const v = dup.reported.netConstantPressureJPerG[b]
+    if (v !== undefined) certRows.push({ quantity: 'Net calorific value at constant pressure', basis: BASIS_LABEL[b], valueJPerG: v, expandedUncertaintyJPerG: null })
+  }
+  for (const b of BASIS_ORDER) {
+    const v = dup.reported.netConstantVolumeJPerG[b]
+    if (v !== undefined) certRows.push({ quantity: 'Net calorific value at constant volume', basis: BASIS_LABEL[b], valueJPerG: v, expandedUncertaintyJPerG: null })
+  }
+  const a = first.analysis
+  const analysis = [
+    a.moistureAdPct !== null && { label: 'moisture of the analysis sample', value: `${a.moistureAdPct} %` },
+    a.moistureArPct !== null && { label: 'total moisture as received', value: `${a.moistureArPct} %` },
+    a.ashDryPct !== null && { label: 'ash (dry)', value: `${round(a.ashDryPct, 2)} %` },
+    a.hydrogenDryPct !== null && { label: 'hydrogen (dry)', value: `${round(a.hydrogenDryPct, 2)} %` },
+    a.oxygenDryPct !== null && { label: 'oxygen (dry)', value: `${round(a.oxygenDryPct, 2)} %` },
+    a.nitrogenDryPct !== null && { label: 'nitrogen (dry)', value: `${round(a.nitrogenDryPct, 2)} %` },
+  ].filter((x): x is { label: string, value: string } => !!x)
+  const fired = views.map(v => v.firedAt).filter((d): d is Date => !!d).map(d => new Date(d).toISOString()).sort()
+  const [previous] = await db.select({ reportNumber: schema.reports.reportNumber }).from(schema.reports).where(eq(schema.reports.sampleCode, sampleCode)).orderBy(desc(schema.reports.issuedAt)).limit(1)
+  const reportedAs = dup.method === 'median' ? 'the median of the determinations, flagged for review' : dup.n === 1 ? 'the single determination' : `the mean of ${dup.n} determinations`
+  const ee = first.energyEquivalent
+  return {
+    resultIds: rows.map(r => r.id),
+    content: {
+      labName,
+      sampleCode,
+      sampleDescription: description,
+      method: [
+        'Gross calorific value at constant volume by combustion in an oxygen-pressurised vessel in a calorimeter calibrated with certified benzoic acid (ISO 1928; ASTM D5865).',
+        'Net calorific values by ISO 1928 / ISO 18125; bases by ASTM D3180 / ISO 1170.',
+        ee ? `Energy equivalent ${fmtFixed(ee.valueJPerK, 1)} J/K (accepted ${ee.acceptedAt?.slice(0, 10) ?? '—'}).` : '',
+      ].filter(Boolean),
+      unit: policy.displayUnit,
+      rows: certRows,
+      duplicate: { status: dup.status, message: dup.message, n: dup.n, rangeJPerG: dup.range, limitJPerG: dup.limit, reportedAs },
+      determinations: views.map(v => ({
+        resultId: v.id, revision: v.revision, firedAt: v.firedAt ? new Date(v.firedAt).toISOString() : null, vesselName: v.vesselName ?? '', sampleMassG: v.values.sampleMassG,
+        temperatureRiseK: v.values.temperatureRiseK, grossAdJPerG: v.values.grossJPerG['air-dried']!, expandedUncertaintyJPerG: v.values.uncertainty?.expandedUncertaintyJPerG ?? null,
+        signedBy: v.signature?.signerName ?? '', signedAt: v.signature ? new Date(v.signature.signedAt).toISOString() : '',
+      })),
+      analysis,
+      testedFrom: fired[0] ?? null,
+      testedTo: fired[fired.length - 1] ?? null,
+      signers: [...new Map(views.filter(v => v.signature).map(v => [v.signature!.signerName, { name: v.signature!.signerName, signedAt: new Date(v.signature!.signedAt).toISOString() }])).values()],
+      issuedBy: issuer.name,
+      replaces: previous?.reportNumber ?? null,
+      statements: [
+        'The results relate only to the sample as tested. "As determined" is the analysis sample as weighed (air-dried basis).',
+        `U is the expanded uncertainty with coverage factor k = 2 (about 95 % coverage), evaluated as in JCGM 100:2008 from the uncertainties of the energy equivalent, the temperature rise, the sample mass and the corrections; it is not stated for the net values, which also depend on the hydrogen and moisture determinations.`,
+        `Duplicate determinations are accepted when they differ by no more than the repeatability limit of ${fmtFixed(policy.repeatabilityJPerG, 0)} J/g (ISO 1928).`,
+        'This certificate shall not be reproduced except in full without the written approval of the laboratory.',
+      ],
+    },
+  }
+}
+
+const fmtFixed = (v: number, d: number) => v.toLocaleString('en-GB', { minimumFractionDigits: d, maximumFractionDigits: d })

@@ -72,7 +72,7 @@ function maker(rand: () => number) {
       const target: { [key: string]: Json } = spot < 0.3 ? body : spot < 0.5 && body.vessel && typeof body.vessel === 'object' && !Array.isArray(body.vessel) ? body.vessel : Array.isArray(components) && components.length && typeof components[0] === 'object' && components[0] !== null && !Array.isArray(components[0]) ? components[0] as { [key: string]: Json } : body
       const how = rand()
       if (how < 0.6) target[pick(KEYS)] = value()
-      else if (how < 0.8) delete target[pick(Object.keys(target))]
+      else if (how < 0.8) Reflect.deleteProperty(target, pick(Object.keys(target)))
       else if (how < 0.9) target.formula = tokens(FORMULA_TOKENS, 12)
       else target.smiles = tokens(SMILES_TOKENS, 24)
     }

@@ -62,6 +62,13 @@ describe('lab policy, audit trail and mail pages in Chromium', () => {
     await expect(changes.textContent()).resolves.toMatch(/policy\.fillPressureWindowMaxMPa\s*from\s*3\.2\s*→\s*to\s*3\.3/)
     // The CSV link carries the filters in force.
     await expect(page.getByTestId('audit-csv').getAttribute('href')).resolves.toBe('/api/audit/export.csv?entity=lab-settings')
+    // Filters typed into the bar go to the address and to the CSV link.
+    await page.getByLabel('Person (name or user id)').fill('natarajan')
+    await page.getByRole('button', { name: 'Apply filters' }).click()
+    await page.waitForURL(/actor=natarajan/)
+    await expect(page.getByTestId('audit-csv').getAttribute('href')).resolves.toBe('/api/audit/export.csv?entity=lab-settings&actor=natarajan')
+    await entry.waitFor()
+    await entry.locator('details').evaluate((d) => { (d as HTMLDetailsElement).open = true })
     await shot(page, 'audit')
 
     // Put the default back through the page, so later tests meet the lab as loaded.

@@ -1,0 +1,31 @@
+#!/usr/bin/env bash
+# npm run bench: the same set-up as npm test against its own fresh database (emberline_bench), then the built server
+# on a free port and scripts/bench.ts, which prints one markdown table. The server is stopped at the end.
+source "$(dirname "$0")/setup.sh"
+ensure_deps
+EMBERLINE_USE_GIVEN_DB=0 setup_database emberline_bench fresh
+
+cd "$ROOT"
+if [ -n "${EMBERLINE_BUILD_DIR:-}" ]; then
+  # A build of one's own (a parallel worktree): ensure_build only knows the default .output.
+  OUTPUT="$EMBERLINE_BUILD_DIR/.output"
+  [ -f "$OUTPUT/server/index.mjs" ] || { say "building the app into $EMBERLINE_BUILD_DIR"; npx nuxt build >"$DATA/bench-build.log" 2>&1 || { tail -40 "$DATA/bench-build.log"; exit 1; }; }
+else
+  ensure_build
+  OUTPUT="$ROOT/.output"
+fi
+
+PORT=$(node -e "const s = require('net').createServer(); s.listen(0, '127.0.0.1', () => { console.log(s.address().port); s.close() })")
+say "starting the built server on 127.0.0.1:$PORT"
+PORT=$PORT NITRO_HOST=127.0.0.1 NODE_ENV=production node "$OUTPUT/server/index.mjs" >"$DATA/bench-server.log" 2>&1 &
+SERVER_PID=$!
+trap 'kill "$SERVER_PID" 2>/dev/null || true; wait "$SERVER_PID" 2>/dev/null || true' EXIT
+healthy() { node -e "fetch('http://127.0.0.1:$PORT/api/health').then(r => process.exit(r.ok ? 0 : 1), () => process.exit(1))"; }
+for _ in $(seq 1 100); do
+  healthy && break
+  kill -0 "$SERVER_PID" 2>/dev/null || { tail -20 "$DATA/bench-server.log"; exit 1; }
+  sleep 0.3
+done
+healthy || { say "the server did not start"; tail -20 "$DATA/bench-server.log"; exit 1; }
+
+EMBERLINE_BENCH_URL="http://127.0.0.1:$PORT" npx tsx scripts/bench.ts
