@@ -1,5 +1,6 @@
 // npm run bench (through scripts/bench.sh, which starts the built server): prints one markdown table of speed figures.
 // Progress goes to stderr so that stdout is only the table. Figures are printed, never asserted.
+import { cpus, loadavg } from 'node:os'
 import { gzipSync } from 'node:zlib'
 import { assessCharge, type ChargeInput } from '../shared/domain/assessment'
 import { DEFAULT_POLICY } from '../shared/domain/policy'
@@ -58,29 +59,46 @@ async function signIn(): Promise<string> {
   return cookie.split(';')[0]!
 }
 
-/** Requests per second with CONNECTIONS requests in flight for SECONDS; any answer but 200 stops the bench. */
-async function load(name: string, request: () => Promise<Response>): Promise<{ rps: number, p50Ms: number }> {
-  log(`${name}: ${CONNECTIONS} connections for ${SECONDS} s (after 1 s warm-up)`)
-  const run = async (ms: number, latencies?: number[]) => {
-    const deadline = performance.now() + ms
-    let done = 0
-    await Promise.all(Array.from({ length: CONNECTIONS }, async () => {
-      while (performance.now() < deadline) {
-        const t0 = performance.now()
-        const res = await request()
-        await res.arrayBuffer()
-        if (res.status !== 200) throw new Error(`${name} answered ${res.status}`)
-        latencies?.push(performance.now() - t0)
-        done++
-      }
-    }))
-    return done
-  }
-  await run(1000)
-  const latencies: number[] = []
+type Route = { name: string, request: () => Promise<Response> }
+
+/** CONNECTIONS requests of one route in flight for `ms`; any answer but 200 stops the bench. */
+async function slice(route: Route, ms: number, latencies?: number[]): Promise<{ done: number, seconds: number }> {
   const t0 = performance.now()
-  const done = await run(SECONDS * 1000, latencies)
-  return { rps: done / ((performance.now() - t0) / 1000), p50Ms: median(latencies) }
+  const deadline = t0 + ms
+  let done = 0
+  await Promise.all(Array.from({ length: CONNECTIONS }, async () => {
+    while (performance.now() < deadline) {
+      const start = performance.now()
+      const res = await route.request()
+      await res.arrayBuffer()
+      if (res.status !== 200) throw new Error(`${route.name} answered ${res.status}`)
+      latencies?.push(performance.now() - start)
+      done++
+    }
+  }))
+  return { done, seconds: (performance.now() - t0) / 1000 }
+}
+
+/**
+ * Requests per second of two routes on the same server, SECONDS each, in alternating slices (A B B A …) so that a
+ * change in the machine's background load falls on both alike and their ratio stays fair.
+ */
+async function compare(a: Route, b: Route) {
+  log(`${a.name} against ${b.name}: ${CONNECTIONS} connections, ${SECONDS} s each in alternating slices (after warm-up)`)
+  await slice(a, 1000)
+  await slice(b, 1000)
+  const rounds = Math.max(1, Math.round(SECONDS / 2))
+  const sliceMs = (SECONDS * 1000) / rounds
+  const stats = [a, b].map(() => ({ done: 0, seconds: 0, latencies: [] as number[] }))
+  for (let r = 0; r < rounds; r++) {
+    const order = r % 2 === 0 ? [0, 1] : [1, 0]
+    for (const i of order) {
+      const s = await slice(i === 0 ? a : b, sliceMs, stats[i]!.latencies)
+      stats[i]!.done += s.done
+      stats[i]!.seconds += s.seconds
+    }
+  }
+  return stats.map(s => ({ rps: s.done / s.seconds, p50Ms: median(s.latencies) }))
 }
 
 /** Sum of the gzip sizes of the JS the page loads at once: script srcs and modulepreloads in its server-rendered HTML. */
@@ -101,6 +119,7 @@ async function pageWeight(cookie: string, path: string) {
 }
 
 async function main() {
+  const loadBefore = loadavg()[0] ?? 0
   log('assessCharge in this Node process')
   const node = benchNode()
 
@@ -114,18 +133,21 @@ async function main() {
   const check = await fetch(`${BASE}/api/assess`, { method: 'POST', headers, body: assessBody })
   if (check.status !== 200) throw new Error(`POST /api/assess answered ${check.status}: ${await check.text()}`)
 
-  const assess = await load('POST /api/assess', () => fetch(`${BASE}/api/assess`, { method: 'POST', headers, body: assessBody }))
-  const trivial = await load('GET /api/settings', () => fetch(`${BASE}/api/settings`, { headers: { cookie } }))
+  const [assess, trivial] = await compare(
+    { name: 'POST /api/assess', request: () => fetch(`${BASE}/api/assess`, { method: 'POST', headers, body: assessBody }) },
+    { name: 'GET /api/settings', request: () => fetch(`${BASE}/api/settings`, { headers: { cookie } }) },
+  )
+  if (!assess || !trivial) throw new Error('no load figures')
   log('client JS of /check')
   const weight = await pageWeight(cookie, '/check')
 
-  const conditions = `${CONNECTIONS} connections, ${SECONDS} s, Node ${process.version}, fetch (undici) keep-alive`
+  const conditions = `${CONNECTIONS} connections, ${SECONDS} s in alternating slices, Node ${process.version}, fetch (undici) keep-alive`
   const rows = [
     ['One assessment in Node (`assessCharge`, median)', `${fmt(node.oneUs, 1)} µs`, 'coal + benzoic-acid aid + nickel-chromium fuse; 20,000 runs after 2,000 warm-up'],
     ['1,000 charges in Node', `${fmt(node.thousandMs, 1)} ms`, 'sample mass varied; median of 7 rounds'],
     ['`POST /api/assess` (vesselId of a vessel in service)', `${fmt(assess.rps)} req/s`, `median latency ${fmt(assess.p50Ms, 1)} ms; ${conditions}`],
     ['`GET /api/settings` (trivial authenticated route)', `${fmt(trivial.rps)} req/s`, `median latency ${fmt(trivial.p50Ms, 1)} ms; same server and conditions`],
-    ['Ratio assess / trivial', fmt(assess.rps / trivial.rps, 2), 'aim ≥ 0.5'],
+    ['Ratio assess / trivial', fmt(assess.rps / trivial.rps, 2), `aim ≥ 0.5; ${cpus().length} cores, load average ${fmt(loadBefore, 1)} at the start (the load generator shares the machine)`],
     ['Quick check page, client JS', `${fmt(weight.gzipKB, 1)} kB gzip`, `${weight.files} files (${fmt(weight.rawKB, 0)} kB raw) from script and modulepreload tags; formula and SMILES libraries load later, on first use`],
   ]
   const out = ['| Measure | Result | Conditions |', '|---|---|---|', ...rows.map(r => `| ${r.join(' | ')} |`)]

@@ -71,10 +71,9 @@ export default defineEventHandler(async (event) => {
   const body = await parseBody(event, assessBodySchema)
   const { vesselId, vessel: inlineVessel, ...charge } = body
 
-  const policy = await getPolicy()
+  const [policy, row, components] = await Promise.all([getPolicy(), vesselId ? findVesselOr404(useDb(), vesselId) : null, resolveEach(charge.components)])
   // The register's record wins over an inline vessel: its state (overdue, locked out…) must not be bypassed.
-  const vessel = vesselId ? assessmentVessel(vesselView(await findVesselOr404(useDb(), vesselId), policy)) : inlineVessel!
-  const components = await resolveEach(charge.components)
+  const vessel = row ? assessmentVessel(vesselView(row, policy)) : inlineVessel!
 
   try {
     // standardEnergyJ: the caller's own target until standardisation records exist.

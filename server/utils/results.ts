@@ -4,18 +4,18 @@ import { createHash } from 'node:crypto'
 import { and, asc, desc, eq, inArray } from 'drizzle-orm'
 import type { SQL } from 'drizzle-orm'
 import { z } from 'zod'
-import { resolveComponents } from '#shared/domain/assessment'
-import type { ChargeComponentInput, ResolvedChemistry } from '#shared/domain/assessment'
-import { toDryBasis } from '#shared/domain/composition'
-import type { Composition } from '#shared/domain/composition'
-import type { LabPolicy } from '#shared/domain/policy'
+import { resolveComponents } from '../../shared/domain/assessment'
+import type { ChargeComponentInput, ResolvedChemistry } from '../../shared/domain/assessment'
+import { toDryBasis } from '../../shared/domain/composition'
+import type { Composition } from '../../shared/domain/composition'
+import type { LabPolicy } from '../../shared/domain/policy'
 import {
   acidCorrectionFromTitrationJ, analyseThermogram, assessDuplicates, calorificValueUncertainty, convertBasis, energyEquivalent,
   fuseCorrectionJ, grossCalorificValue, median, mean, netCalorificValueConstantPressure, netCalorificValueConstantVolume,
   nitricAcidCorrectionJ, parseThermogramCsv, rectangularStandardUncertainty, standardUncertaintyOfMean, sulfurCorrectionJ,
-} from '#shared/domain/results'
-import type { Basis, BasisConditions, CorrectionEstimate, DuplicateAssessment, UncertaintyBudget } from '#shared/domain/results'
-import type { RunComponent } from '#shared/schemas/plans'
+} from '../../shared/domain/results'
+import type { Basis, BasisConditions, CorrectionEstimate, DuplicateAssessment, UncertaintyBudget } from '../../shared/domain/results'
+import type { RunComponent } from '../../shared/schemas/plans'
 import type { CertificateContent, CertificateRow } from './certificate'
 
 export type ResultRow = typeof schema.results.$inferSelect
@@ -172,7 +172,7 @@ export interface ResultContext {
   policy: LabPolicy
 }
 
-class ResultInputError extends Error {
+export class ResultInputError extends Error {
   constructor(readonly path: string, message: string) { super(message) }
 }
 
@@ -228,7 +228,7 @@ export function thermogramRise(t: NonNullable<ResultInputs['thermogram']>): { ri
 /** The whole computation of one result; throws a 422 naming the input when a figure is impossible. */
 export function computeResult(inputs: ResultInputs, ctx: ResultContext): ResultValues {
   try {
-    return compute(inputs, ctx)
+    return computeResultValues(inputs, ctx)
   }
   catch (err) {
     if (err instanceof ResultInputError) invalidInput([{ path: err.path, message: err.message }])
@@ -237,7 +237,8 @@ export function computeResult(inputs: ResultInputs, ctx: ResultContext): ResultV
   }
 }
 
-function compute(inputs: ResultInputs, ctx: ResultContext): ResultValues {
+/** The computation itself, free of the server: scripts/seed-bench.ts uses it too. Throws RangeError or ResultInputError. */
+export function computeResultValues(inputs: ResultInputs, ctx: ResultContext): ResultValues {
   const { policy, kind } = ctx
   const notes: ResultNote[] = []
   const missing: string[] = []
