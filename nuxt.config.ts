@@ -7,7 +7,7 @@ export default defineNuxtConfig({
   srcDir: '.',
   compatibilityDate: '2026-11-01',
   devtools: { enabled: false },
-  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', '@vueuse/nuxt', 'nuxt-auth-utils', '@nuxt/eslint'],
+  modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', '@vueuse/nuxt', 'nuxt-auth-utils', '@nuxt/eslint', 'nuxt-security'],
   css: ['@fontsource-variable/inter/index.css', '~/assets/css/main.css'],
   app: {
     head: {
@@ -32,6 +32,70 @@ export default defineNuxtConfig({
     smtp: { host: '127.0.0.1', port: 2525, secure: false, user: '', pass: '', from: 'Emberline <no-reply@emberline.test>' },
     storageDir: '',
     public: { labName: '' },
+  },
+  // Security headers (issue 7). nuxt-security puts a fresh nonce on every script Nuxt renders and sends the page's
+  // CSP with it; server/plugins/security-headers.ts adds the headers it sends only with pages (CSP, Permissions-Policy,
+  // COOP) to API answers and assets, and HSTS over HTTPS only. Its in-memory parts stay off: they would differ between
+  // instances (sign-in throttling lives in the database) or rewrite bodies; server/middleware/00.origin.ts refuses
+  // cross-site writes instead of CSRF tokens.
+  security: {
+    nonce: true,
+    // No prerendered pages: every page is rendered per request with its own nonce, so no hashes are needed.
+    ssg: false,
+    sri: true,
+    removeLoggers: false,
+    rateLimiter: false,
+    xssValidator: false,
+    csrf: false,
+    // Same origin only: no CORS headers, so a browser never lets another site read an answer.
+    corsHandler: false,
+    allowedMethodsRestricter: false,
+    // JSON bodies up to 4 MB (a 1 MB CSV import, escaped); multipart uploads are checked by the upload route against
+    // the lab policy's per-file limit, which an admin may raise, so this limiter leaves them alone.
+    requestSizeLimiter: { maxRequestSizeInBytes: 4_194_304, maxUploadFileRequestInBytes: Number.MAX_SAFE_INTEGER, throwError: true },
+    hidePoweredBy: true,
+    headers: {
+      contentSecurityPolicy: {
+        'default-src': ["'none'"],
+        // Scripts only with this response's nonce, and what they load ('strict-dynamic'); never inline or eval.
+        'script-src': ["'self'", "'strict-dynamic'", "'nonce-{{nonce}}'"],
+        'script-src-attr': ["'none'"],
+        // Vue's style bindings write style attributes: inline styles are allowed, scripts are not.
+        'style-src': ["'self'", "'unsafe-inline'"],
+        'img-src': ["'self'", 'data:'],
+        'font-src': ["'self'", 'data:'],
+        'connect-src': ["'self'"],
+        'manifest-src': ["'self'"],
+        'form-action': ["'self'"],
+        'base-uri': ["'none'"],
+        'object-src': ["'none'"],
+        'frame-ancestors': ["'none'"],
+        // Off: it would send http://localhost and plain-HTTP LAN set-ups to an https:// that is not there.
+        'upgrade-insecure-requests': false,
+      },
+      crossOriginEmbedderPolicy: false,
+      crossOriginOpenerPolicy: 'same-origin',
+      crossOriginResourcePolicy: 'same-origin',
+      originAgentCluster: '?1',
+      referrerPolicy: 'same-origin',
+      // Sent by server/plugins/security-headers.ts, and only over HTTPS (RFC 6797 §7.2).
+      strictTransportSecurity: false,
+      xContentTypeOptions: 'nosniff',
+      xDNSPrefetchControl: 'off',
+      xDownloadOptions: 'noopen',
+      xFrameOptions: 'DENY',
+      xPermittedCrossDomainPolicies: 'none',
+      xXSSProtection: '0',
+      permissionsPolicy: {
+        'camera': [],
+        'microphone': [],
+        'geolocation': [],
+        'payment': [],
+        'usb': [],
+        'display-capture': [],
+        'fullscreen': [],
+      },
+    },
   },
   tailwindcss: { cssPath: false, configPath: 'tailwind.config.ts', viewer: false },
   eslint: { config: { stylistic: false } },

@@ -41,8 +41,10 @@ ensure_deps() {
 
 # Build when .output is missing or any source file is newer than the last build.
 ensure_build() {
-  local stamp="$ROOT/.output/.emberline-build"
-  if [ -f "$stamp" ] && [ -z "$(cd "$ROOT" && find . \( -path ./node_modules -o -path ./.data -o -path ./.output -o -path ./.nuxt -o -path ./tests -o -path ./.git -o -path ./docs \) -prune -o -type f -newer "$stamp" -print -quit)" ]; then
+  local out="${EMBERLINE_BUILD_DIR:+$EMBERLINE_BUILD_DIR/}.output"
+  case "$out" in /*) ;; *) out="$ROOT/$out" ;; esac
+  local stamp="$out/.emberline-build"
+  if [ -f "$stamp" ] && [ -z "$(cd "$ROOT" && find . \( -path ./node_modules -o -path ./.data -o -path ./.output -o -path ./.nuxt -o -path ./tests -o -path ./.git -o -path ./docs -o -path ./backups \) -prune -o -type f -newer "$stamp" -print -quit)" ]; then
     return 0
   fi
   say "building the app (nuxt build, about 30 s)"

@@ -1,7 +1,7 @@
 // Vessel reminders (issue 6): when a vessel's state changes to one that needs someone's hands, technicians
 // and supervisors get one e-mail — once per change, however many workers or app instances look at the same time.
 import type { H3Event } from 'h3'
-import { asc, eq, sql } from 'drizzle-orm'
+import { and, asc, eq, inArray, sql } from 'drizzle-orm'
 import { VESSEL_STATE_LABELS } from '#shared/labels'
 import type { LabPolicy } from '#shared/domain/policy'
 import type { VesselState } from '#shared/domain/vessel-state'
@@ -67,6 +67,7 @@ export async function notifyVesselTransition(tx: Tx, event: H3Event | null, v: V
   const claimed = await tx.execute(sql`UPDATE vessels SET notified_state = ${view.state} WHERE id = ${v.id} AND notified_state IS DISTINCT FROM ${view.state} RETURNING id`)
   result.claimed = claimed.rows.length > 0
   if (!result.claimed || !REMINDER_STATES.has(view.state)) return result
+  if (view.state === 'locked-out' && await lockedOutByFiring(tx, v)) return result
   const to = [...new Set([...await recipientsWithRole(tx, 'technician'), ...await recipientsWithRole(tx, 'supervisor')])]
   result.dedupeKey = reminderKey(v, view.state)
   result.mailed = await enqueueMail(tx, { to, subject: `${v.name}: ${VESSEL_STATE_LABELS[view.state]}`, text: reminderText(v, view), dedupeKey: result.dedupeKey })
@@ -74,6 +75,15 @@ export async function notifyVesselTransition(tx: Tx, event: H3Event | null, v: V
     await audit(tx, event, { action: 'vessel.reminder', entity: 'vessel', entityId: v.id, oldValues: { notifiedState: v.notifiedState }, newValues: { state: view.state, to, dedupeKey: result.dedupeKey } })
   }
   return result
+}
+
+/** True when a leak or overpressure firing started this lock-out: the firing route mails those itself (server/utils/firing.ts). */
+async function lockedOutByFiring(tx: Tx, v: VesselRow): Promise<boolean> {
+  if (!v.conditionSince) return false
+  const f = schema.firings
+  const [hit] = await tx.select({ id: f.id }).from(f)
+    .where(and(eq(f.vesselId, v.id), eq(f.firedAt, v.conditionSince), inArray(f.outcome, ['leak', 'overpressure']))).limit(1)
+  return !!hit
 }
 
 export interface FleetCheckReport { checkedAt: Date, vessels: number, transitions: TransitionResult[] }

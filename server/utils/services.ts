@@ -181,28 +181,28 @@ export function serviceEffect(vessel: VesselRow, input: ServiceInput, policy: La
       if (keepLock) {
         return { reset: 'service', condition: 'locked-out', lockCause: null, reason: vessel.conditionReason, checksPassed: true, message: 'Routine service recorded and the service counter reset. The vessel stays locked out until a return to service is signed.' }
       }
-      return { reset: 'service', condition: 'awaiting-verification', lockCause: null, reason: `Routine service on ${isoDay(new Date(input.performedAt))}. ${AWAIT_CHECK}`, checksPassed: true, message: `Routine service recorded: the service counter is reset. ${AWAIT_CHECK}` }
+      return { reset: 'service', condition: 'awaiting-verification', lockCause: null, reason: `Routine seal service recorded for ${isoDay(new Date(input.performedAt))}.`, checksPassed: true, message: `Routine service recorded: the service counter is reset. ${AWAIT_CHECK}` }
     }
     case 'requalification': {
       if (!input.passed) return lock(vessel, 'requalification-failed', `the requalification by ${input.body} failed (certificate ${input.certificateNumber}).`)
       if (keepLock) {
         return { reset: 'both', condition: 'locked-out', lockCause: null, reason: vessel.conditionReason, message: 'Requalification recorded and both counters reset. The vessel stays locked out until a technician signs its return to service.' }
       }
-      return { reset: 'both', condition: 'awaiting-verification', lockCause: null, reason: `Requalified by ${input.body} (certificate ${input.certificateNumber}). ${AWAIT_CHECK}`, message: `Requalification recorded: both counters are reset. ${AWAIT_CHECK}` }
+      return { reset: 'both', condition: 'awaiting-verification', lockCause: null, reason: `Requalified by ${input.body} (certificate ${input.certificateNumber}) on ${isoDay(new Date(input.performedAt))}.`, message: `Requalification recorded: both counters are reset. ${AWAIT_CHECK}` }
     }
     case 'inspection':
       if (input.damageOrCorrosionSeen) return lock(vessel, 'damage', `damage or corrosion seen at inspection: ${input.findings}`)
       return { reset: null, condition: c, lockCause: null, reason: vessel.conditionReason, message: 'Inspection recorded. The vessel\'s condition is unchanged.' }
     case 'repair':
       if (keepLock) return { reset: null, condition: c, lockCause: null, reason: vessel.conditionReason, message: 'Repair recorded. The vessel stays locked out until a return to service is signed.' }
-      return { reset: null, condition: 'awaiting-verification', lockCause: null, reason: `Repaired on ${isoDay(new Date(input.performedAt))}. ${AWAIT_CHECK}`, message: `Repair recorded. ${AWAIT_CHECK}` }
+      return { reset: null, condition: 'awaiting-verification', lockCause: null, reason: `Repaired on ${isoDay(new Date(input.performedAt))}.`, message: `Repair recorded. ${AWAIT_CHECK}` }
     case 'lock-out':
       if (keepLock) conflict('The vessel is already locked out.')
       return lock(vessel, 'manual', input.reason)
     case 'return-to-service':
       if (!keepLock) conflict('Only a locked-out vessel is returned to service.')
       if (!returnAllowed.ok) conflict(returnAllowed.why)
-      return { reset: null, condition: 'awaiting-verification', lockCause: null, reason: `Returned to service: ${input.reason}. ${AWAIT_CHECK}`, message: `Lock-out ended. ${AWAIT_CHECK}` }
+      return { reset: null, condition: 'awaiting-verification', lockCause: null, reason: `Lock-out ended: ${input.reason}`, message: `Lock-out ended. ${AWAIT_CHECK}` }
     case 'sent-away':
       return { reset: null, condition: 'away', lockCause: null, reason: `Sent to ${input.destination} for ${input.purpose}.`, message: 'Recorded: the vessel is away and cannot be planned or fired until its requalification is recorded.' }
   }

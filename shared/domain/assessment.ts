@@ -408,6 +408,10 @@ function validate(input: ChargeInput): void {
     nonNegative(c.heatingValueJPerG, ['components', i, 'heatingValueJPerG'])
     nonNegative(c.decompositionEnergyJPerG, ['components', i, 'decompositionEnergyJPerG'])
     if (c.densityGPerMl !== undefined) positive(c.densityGPerMl, ['components', i, 'densityGPerMl'])
+    // Without its length a metal wire would be priced by mass at the cotton value: refuse rather than guess.
+    if (c.role === 'fuse' && c.wire !== undefined && c.wire !== 'cotton' && c.lengthCm === undefined && c.heatingValueJPerG === undefined) {
+      issues.push({ path: ['components', i, 'lengthCm'], message: `a ${c.wire} fuse wire needs its burnt length in cm` })
+    }
     if (c.composition) {
       for (const problem of compositionProblems(c.composition)) issues.push({ path: ['components', i, 'composition'], message: problem })
     }
@@ -980,7 +984,7 @@ function methodNotes(
       ? { figure: `oxygen demand of ${c.label}`, formula: 'n(O2)/g = C/12.011 + H/4.032 + S/32.06 − O/31.998 (mass fractions; N → N2; Cl → HCl takes H)', source: 'stoichiometry, IUPAC atomic weights', inputs: { ...inputs, demandMolPerG: c.demandPerG } }
       : { figure: `oxygen demand of ${c.label}`, formula: 'n(O2) = Q / 13,100 J per g O2 / 31.998 g/mol (estimated from heat: no composition)', source: 'Huggett 1980, Fire and Materials 4:61', inputs: { ...inputs, demandMolPerG: c.demandPerG } })
   }
-  notes.push({ figure: 'heat release', formula: 'Q = Σ mass × heating value (+ fuse wire length × J/cm)', source: 'DESIGN §3.1', inputs: { heatReleaseJ: r.s.heatJ, sampleMassG: r.m } })
+  notes.push({ figure: 'heat release', formula: 'Q = Σ mass × heating value (+ fuse wire length × J/cm)', source: 'sum over the charge: sample, aid, fuse (common practice)', inputs: { heatReleaseJ: r.s.heatJ, sampleMassG: r.m } })
   notes.push({
     figure: 'oxygen available',
     formula: 'n = P_abs·V/(Z·R·T) − 0.7905·n_air; V = vessel − water − charge/density; P_abs = gauge + 0.101325 MPa; n_air = 0.101325 MPa·V/(R·T)',
@@ -994,7 +998,7 @@ function methodNotes(
       nitrogenFromAirMol: r.s.nitrogenMol,
     },
   })
-  notes.push({ figure: 'oxygen excess', formula: 'excess = oxygen available / oxygen demand', source: 'DESIGN §3.3', inputs: { oxygenDemandMol: r.s.demandMol, oxygenExcess: r.excess ?? 'no demand' } })
+  notes.push({ figure: 'oxygen excess', formula: 'excess = oxygen available / oxygen demand', source: 'ratio of the oxygen filled to the stoichiometric demand (common practice)', inputs: { oxygenDemandMol: r.s.demandMol, oxygenExcess: r.excess ?? 'no demand' } })
   notes.push({
     figure: 'peak-pressure bound',
     formula: 'Σ nᵢ[Uᵢ(T) − Uᵢ(T₀)] = Q − n(H2O)·ΔvapU; P = n·R·T/V (constant volume, adiabatic, complete combustion, ideal gas at the peak)',
