@@ -38,6 +38,8 @@ interface DemoRun {
   inputs?: Partial<ResultInputs>
   hoursAgo: number
   thermogramFile?: string
+  /** Cleared and waiting on the bench: not fired yet. */
+  ready?: true
 }
 
 // Invented series around ε ≈ 10 000 J/K (RSD about 0.04 %), and invented sample figures.
@@ -60,6 +62,16 @@ const PLAN: Record<string, { vessel: string, runs: DemoRun[], signSamples: strin
       { sampleCode: 'P-44-B', kind: 'sample', material: 'Pine pellets lot P-44', massG: 1.0066, target: 20_013, hoursAgo: 29, inputs: { moistureAdPct: 6.9, moistureArPct: 7.5 } },
     ],
   },
+  [`Coal batch KR-1 ${MARK}`]: {
+    vessel: 'KR-1 Aster',
+    signSamples: [],
+    runs: ['KRC-2612-A', 'KRC-2612-A', 'KRC-2612-B'].map((code, i) => ({ sampleCode: code, kind: 'sample' as const, material: 'Client coal KRC-2611 (bituminous blend)', massG: 0.95, target: 0, hoursAgo: 3 - i, ready: true as const })),
+  },
+  [`Standardisation after service KR-3 ${MARK}`]: {
+    vessel: 'KR-3 Cedar',
+    signSamples: [],
+    runs: [0, 1, 2, 3, 4].map(i => ({ sampleCode: `STD-C-26${21 + i}`, kind: 'standardisation' as const, material: BA_MATERIAL, massG: 1.0, target: 0, hoursAgo: 2, ready: true as const })),
+  },
 }
 
 /** Same binding as server/utils/runs.ts chargeHash: the charge and its assessment. */
@@ -75,7 +87,7 @@ async function seedPlan(tx: Tx, name: string, spec: typeof PLAN[string], policy:
   const analyst = users.analyst!
   const supervisor = users.supervisor!
   const fill = policy.defaultFillPressureMPa
-  const [plan] = await tx.insert(schema.plans).values({ name, vesselId: vessel.id, fillPressureMPa: fill, createdBy: analyst.id, submittedAt: new Date(Date.now() - 130 * HOUR) }).returning()
+  const [plan] = await tx.insert(schema.plans).values({ name, vesselId: vessel.id, fillPressureMPa: fill, createdBy: analyst.id, submittedAt: new Date(Date.now() - (Math.max(...spec.runs.map(r => r.hoursAgo)) + 3) * HOUR) }).returning()
   await tx.insert(schema.auditLog).values({ action: 'plan.create', entity: 'plan', entityId: plan!.id, actorId: analyst.id, actorName: analyst.name, newValues: plan!, reason: 'demo bench loaded' })
 
   const standardisationIds: string[] = []
@@ -94,8 +106,10 @@ async function seedPlan(tx: Tx, name: string, spec: typeof PLAN[string], policy:
     const firedAt = new Date(Date.now() - r.hoursAgo * HOUR)
     const [run] = await tx.insert(schema.runs).values({
       planId: plan!.id, seq: i + 1, sampleCode: r.sampleCode, kind: r.kind, vesselId: vessel.id, fillPressureMPa: fill, components, assessment,
-      verdict: assessment.verdict, chargeHash: chargeHash(vessel.id, fill, components, assessment), status: 'fired', plannedBy: analyst.id, createdAt: new Date(firedAt.getTime() - 2 * HOUR), updatedAt: firedAt,
+      verdict: assessment.verdict, chargeHash: chargeHash(vessel.id, fill, components, assessment), status: r.ready ? 'ready' : 'fired', plannedBy: analyst.id, createdAt: new Date(firedAt.getTime() - 2 * HOUR), updatedAt: firedAt,
     }).returning()
+    await tx.insert(schema.auditLog).values({ action: 'run.submit', entity: 'run', entityId: run!.id, actorId: analyst.id, actorName: analyst.name, newValues: { status: 'ready', verdict: assessment.verdict }, reason: 'demo bench loaded' })
+    if (r.ready) continue
 
     // The firing and its count, together (DESIGN.md §5): the database adds one to each counter.
     const firingId = randomUUID()

@@ -4,6 +4,7 @@
 import { randomUUID } from 'node:crypto'
 import { STATUS_CODES } from 'node:http'
 import type { H3Error, H3Event } from 'h3'
+import type pg from 'pg'
 
 /** Seconds a client should wait before retrying while the database is away. */
 const RETRY_AFTER_S = 5
@@ -17,6 +18,14 @@ function sendJson(event: H3Event, statusCode: number, statusMessage: string, bod
 }
 
 export default defineNitroPlugin((nitroApp) => {
+  // node-postgres emits 'error' on a checked-out client (a transaction in progress) whose connection drops; with no
+  // listener that is an uncaught exception. The statement fails as well and is answered above with a 503, and the
+  // pool discards the broken client when it is released, so the event needs no more than a listener.
+  try {
+    (useDb() as unknown as { $client?: pg.Pool }).$client?.on('connect', client => client.on('error', () => {}))
+  }
+  catch { /* no database configured: useDb() answers 503 per request */ }
+
   const original = nitroApp.h3App.options.onError
   nitroApp.h3App.options.onError = async (error: H3Error, event: H3Event) => {
     const requestId = event.context.requestId ?? randomUUID()
@@ -29,7 +38,7 @@ export default defineNitroPlugin((nitroApp) => {
         const cause = (error.cause as Error | undefined)?.cause ?? error.cause ?? error
         console.error(`[db] unreachable, answering 503 (request ${requestId}, ${event.method} ${event.path.split('?')[0]}): ${(cause as Error)?.message ?? String(cause)}`)
       }
-      if (!event.node.res.headersSent) setResponseHeader(event, 'Retry-After', String(RETRY_AFTER_S))
+      if (!event.node.res.headersSent) setResponseHeader(event, 'Retry-After', RETRY_AFTER_S)
       if (api && !event.handled) return sendJson(event, 503, 'Service Unavailable', { message: DB_OUTAGE_MESSAGE, data: { requestId } })
       // Pages show Nuxt's error page with the same words.
       return original?.(createError({ statusCode: 503, statusMessage: 'Service Unavailable', message: DB_OUTAGE_MESSAGE, data: { requestId } }), event)

@@ -5,7 +5,7 @@ import { existsSync, readFileSync } from 'node:fs'
 import { createRequire } from 'node:module'
 import { join } from 'node:path'
 import PDFDocument from 'pdfkit'
-import { formatSpecificEnergy, fromJPerG, type SpecificEnergyUnit } from '#shared/domain/specific-energy'
+import { formatSpecificEnergy, fromJPerG, type SpecificEnergyUnit } from '../../shared/domain/specific-energy'
 
 export interface CertificateDetermination {
   resultId: string
@@ -166,6 +166,12 @@ export async function renderCertificatePdf(content: CertificateContent, report: 
   }
   const left = doc.page.margins.left
   const width = doc.page.width - left - doc.page.margins.right
+  // Start a new page when the next block would not fit above the bottom margin.
+  const room = (y: number, needed: number) => {
+    if (y + needed <= doc.page.height - doc.page.margins.bottom) return y
+    doc.addPage()
+    return doc.page.margins.top
+  }
   const unit = content.unit
   const showBoth = unit !== 'J/g'
 
@@ -201,12 +207,15 @@ export async function renderCertificatePdf(content: CertificateContent, report: 
     : [{ t: 'Quantity', w: 0.44 }, { t: 'Basis', w: 0.2 }, { t: 'Value (J/g)', w: 0.18, r: true }, { t: 'U, k = 2 (J/g)', w: 0.18, r: true }]
   const row = (cells: string[], opts: { head?: boolean } = {}) => {
     let x = left
-    const h = 16
+    doc.fontSize(opts.head ? 7.5 : 9)
+    // A long label wraps: the row grows to its tallest cell.
+    const h = Math.max(16, ...cells.map((c, i) => doc.heightOfString(c, { width: cols[i]!.w * width - 6 }) + 6))
+    y = room(y, h)
     if (opts.head) doc.rect(left, y - 3, width, h).fill('#f1ebe1')
-    doc.fontSize(opts.head ? 7.5 : 9).fillColor(opts.head ? SOFT : INK)
+    doc.fillColor(opts.head ? SOFT : INK)
     cells.forEach((c, i) => {
       const col = cols[i]!
-      doc.text(c, x + 3, y, { width: col.w * width - 6, align: col.r ? 'right' : 'left', lineBreak: false })
+      doc.text(c, x + 3, y, { width: col.w * width - 6, align: col.r ? 'right' : 'left' })
       x += col.w * width
     })
     y += h
@@ -238,6 +247,7 @@ export async function renderCertificatePdf(content: CertificateContent, report: 
   doc.fontSize(8.5).fillColor(INK)
   for (const d of content.determinations) {
     const u = d.expandedUncertaintyJPerG === null ? '' : ` ± ${fmt(d.expandedUncertaintyJPerG, 0)} J/g (k = 2)`
+    y = room(y, 26)
     doc.text(
       `${day(d.firedAt)} · vessel ${d.vesselName} · sample ${fmt(d.sampleMassG, 4)} g · temperature rise ${fmt(d.temperatureRiseK, 4)} K · gross as determined ${fmt(d.grossAdJPerG, 0)} J/g${u} · revision ${d.revision}, signed off by ${d.signedBy} on ${day(d.signedAt)}`,
       left, y, { width },
@@ -250,8 +260,8 @@ export async function renderCertificatePdf(content: CertificateContent, report: 
     y = doc.y + 6
   }
 
-  // Statements and authorisation.
-  y += 4
+  // Statements and authorisation, kept together with the end of the report.
+  y = room(y + 4, 150)
   doc.fontSize(8.5).fillColor(SOFT)
   for (const s of content.statements) {
     doc.text(`• ${s}`, left, y, { width })

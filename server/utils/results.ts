@@ -249,6 +249,8 @@ export function computeResultValues(inputs: ResultInputs, ctx: ResultContext): R
   let thermogram: ThermogramSummary | null = null
   let uTheta = inputs.uncertainty?.temperatureRiseK ?? DEFAULT_U_THETA_K
   if (inputs.thermogram) {
+    const bytes = new TextEncoder().encode(inputs.thermogram.csv).length
+    if (bytes > policy.uploadMaxBytes) throw new ResultInputError('thermogram.csv', `the thermogram is ${bytes} bytes; the lab accepts at most ${policy.uploadMaxBytes} bytes`)
     const t = thermogramRise(inputs.thermogram)
     theta = t.riseK
     thermogram = t.summary

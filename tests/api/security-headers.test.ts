@@ -70,8 +70,9 @@ describe('security headers', () => {
     // Nothing in a JSON answer may load or run anything.
     expect(csp(json.headers).get('default-src')).toEqual(['\'none\''])
 
-    for (const [path, status] of [['/api/health', 200], ['/api/vessels', 401], ['/api/no-such-route', 404], ['/no-such-page', 404]] as const) {
-      const res = await get(path, path === '/api/no-such-route' ? { cookie } : {})
+    const answers = [['/api/health', 200, false], ['/api/vessels', 401, false], ['/api/no-such-route', 404, true], ['/no-such-page', 404, true], ['/no-such-page', 302, false]] as const
+    for (const [path, status, signedIn] of answers) {
+      const res = await get(path, signedIn ? { cookie } : {})
       expect(res.res.status, path).toBe(status)
       expectBaseline(res.res.headers, `${status} ${path}`)
     }

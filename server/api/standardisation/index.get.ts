@@ -1,4 +1,4 @@
-import { and, asc, eq } from 'drizzle-orm'
+import { asc, eq } from 'drizzle-orm'
 
 // Standardisation at a glance: each vessel with its accepted ε and the standardisation runs not yet in an accepted series.
 export default defineEventHandler(async (event) => {
@@ -9,7 +9,7 @@ export default defineEventHandler(async (event) => {
     db.select().from(schema.vessels).orderBy(asc(schema.vessels.name)),
     db.select().from(schema.energyEquivalents),
     db.select({ id: schema.results.id, vesselId: schema.results.vesselId, kind: schema.results.kind }).from(schema.results)
-      .where(and(eq(schema.results.current, true))),
+      .where(eq(schema.results.current, true)),
   ])
   const accepted = new Set(energies.flatMap(e => e.resultIds as string[]))
   return vessels.filter(v => v.condition !== 'retired').map((v) => {
