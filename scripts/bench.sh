@@ -1,9 +1,12 @@
 #!/usr/bin/env bash
-# npm run bench: the same set-up as npm test against its own fresh database (emberline_bench), then the built server
-# on a free port and scripts/bench.ts, which prints one markdown table. The server is stopped at the end.
+# npm run bench: the same set-up as npm test against its own fresh database (emberline_bench, or EMBERLINE_BENCH_DB),
+# loaded with a large lab (scripts/bench-seed.ts), then the built server on a free port and scripts/bench.ts, which
+# prints one markdown table. The server is stopped at the end.
 source "$(dirname "$0")/setup.sh"
 ensure_deps
-EMBERLINE_USE_GIVEN_DB=0 setup_database emberline_bench fresh
+EMBERLINE_USE_GIVEN_DB=0 setup_database "${EMBERLINE_BENCH_DB:-emberline_bench}" fresh
+say "loading the large lab (50 vessels, 100,000 firings, 20,000 materials, 200,000 audit rows)"
+npx tsx "$ROOT/scripts/bench-seed.ts"
 
 cd "$ROOT"
 if [ -n "${EMBERLINE_BUILD_DIR:-}" ]; then
@@ -28,4 +31,4 @@ for _ in $(seq 1 100); do
 done
 healthy || { say "the server did not start"; tail -20 "$DATA/bench-server.log"; exit 1; }
 
-EMBERLINE_BENCH_URL="http://127.0.0.1:$PORT" npx tsx scripts/bench.ts
+EMBERLINE_BENCH_URL="http://127.0.0.1:$PORT" EMBERLINE_BENCH_SERVER_PID="$SERVER_PID" npx tsx scripts/bench.ts

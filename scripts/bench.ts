@@ -1,5 +1,6 @@
 // npm run bench (through scripts/bench.sh, which starts the built server): prints one markdown table of speed figures.
 // Progress goes to stderr so that stdout is only the table. Figures are printed, never asserted.
+import { readFileSync } from 'node:fs'
 import { cpus, loadavg } from 'node:os'
 import { gzipSync } from 'node:zlib'
 import { assessCharge, type ChargeInput } from '../shared/domain/assessment'
@@ -9,6 +10,9 @@ const BASE = process.env.EMBERLINE_BENCH_URL ?? 'http://127.0.0.1:3000'
 const CONNECTIONS = Number(process.env.EMBERLINE_BENCH_CONNECTIONS ?? 8)
 const SECONDS = Number(process.env.EMBERLINE_BENCH_SECONDS ?? 10)
 const EMAIL = 'analyst@emberline.test'
+const SERVER_PID = process.env.EMBERLINE_BENCH_SERVER_PID
+const MIXED_SECONDS = Number(process.env.EMBERLINE_BENCH_MIXED_SECONDS ?? 60)
+const MIXED_USERS = 50
 const PASSWORD = process.env.EMBERLINE_BENCH_PASSWORD ?? 'ember-demo-2026'
 
 const log = (text: string) => process.stderr.write(`› ${text}\n`)
@@ -51,8 +55,8 @@ function benchNode() {
   return { oneUs: median(times), thousandMs: median(rounds) }
 }
 
-async function signIn(): Promise<string> {
-  const res = await fetch(`${BASE}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: EMAIL, password: PASSWORD }) })
+async function signIn(email = EMAIL): Promise<string> {
+  const res = await fetch(`${BASE}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password: PASSWORD }) })
   if (!res.ok) throw new Error(`sign-in failed: ${res.status} ${await res.text()}`)
   const cookie = res.headers.getSetCookie().find(c => c.startsWith('emberline-session='))
   if (!cookie) throw new Error('no session cookie')
@@ -118,6 +122,106 @@ async function pageWeight(cookie: string, path: string) {
   return { files: srcs.size, gzipKB: gzip / 1024, rawKB: raw / 1024 }
 }
 
+const p95 = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.ceil(xs.length * 0.95) - 1)]!
+
+/** Median and p95 latency of one request made `n` times, one at a time, after 3 warm-up requests; any answer but `ok` stops the bench. */
+async function latency(name: string, request: () => Promise<Response>, n = 40, ok = 200) {
+  const times: number[] = []
+  for (let i = 0; i < n + 3; i++) {
+    const t0 = performance.now()
+    const res = await request()
+    await res.arrayBuffer()
+    if (res.status !== ok) throw new Error(`${name} answered ${res.status}`)
+    if (i >= 3) times.push(performance.now() - t0)
+  }
+  return { name, p50: median(times), p95: p95(times), n }
+}
+
+/** Peak resident memory of the server so far (VmHWM), when bench.sh passes its pid. */
+function peakRssMB(): number | null {
+  if (!SERVER_PID) return null
+  const m = readFileSync(`/proc/${SERVER_PID}/status`, 'utf8').match(/VmHWM:\s+(\d+) kB/)
+  return m ? Number(m[1]) / 1024 : null
+}
+
+interface LargeLab { vesselId: string, planId: string, audit: string }
+
+/** The large lab that scripts/bench-seed.ts loaded: a load vessel, one of its plans of 100 runs, and the analyst's name. */
+async function largeLab(cookie: string): Promise<LargeLab> {
+  const vessels = await (await fetch(`${BASE}/api/vessels`, { headers: { cookie } })).json() as { id: string, name: string }[]
+  const vessel = vessels.find(v => v.name === 'Load 01')
+  if (!vessel) throw new Error('the large lab is not loaded: run scripts/bench-seed.ts first')
+  const plans = await (await fetch(`${BASE}/api/plans?pageSize=200&q=Load%20plan%201`, { headers: { cookie } })).json() as { rows?: { id: string, name: string }[] } | { id: string, name: string }[]
+  const list = Array.isArray(plans) ? plans : plans.rows ?? []
+  const plan = list.find(p => p.name === 'Load plan 1') ?? list.find(p => p.name.startsWith('Load plan '))
+  if (!plan) throw new Error('no load plan found through GET /api/plans')
+  // The audit search a supervisor makes: the analyst's surname, over the last 30 days (about 43,000 of the 200,000 rows).
+  const me = await (await fetch(`${BASE}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: EMAIL, password: PASSWORD }) })).json() as { user: { name: string } }
+  const actor = encodeURIComponent(me.user.name.split(' ').at(-1)!)
+  const from = new Date(Date.now() - 30 * 86_400_000).toISOString()
+  return { vesselId: vessel.id, planId: plan.id, audit: `/api/audit?actor=${actor}&from=${encodeURIComponent(from)}` }
+}
+
+/** Ready runs on a fresh vessel made through the API (plan, runs, submit), for timing firings. */
+async function readyRuns(admin: string, analyst: string, n: number) {
+  const json = { 'content-type': 'application/json' }
+  const tag = Date.now().toString(36)
+  const v = await fetch(`${BASE}/api/vessels`, {
+    method: 'POST', headers: { ...json, cookie: admin },
+    body: JSON.stringify({ name: `Bench ${tag}`, serialNumber: `BENCH-${tag}`, class: 'standard', ratedEnergyJ: 33000, maxChargeMassG: 1.5, maxFillPressureMPa: 4.05, volumeMl: 300, serviceIntervalFirings: 100000, requalificationIntervalFirings: 1000000 }),
+  })
+  if (v.status !== 201) throw new Error(`POST /api/vessels answered ${v.status}: ${await v.text()}`)
+  const vesselId = ((await v.json()) as { id: string }).id
+  const p = await fetch(`${BASE}/api/plans`, { method: 'POST', headers: { ...json, cookie: analyst }, body: JSON.stringify({ name: `Bench firings ${tag}`, vesselId, fillPressureMPa: 3.0 }) })
+  const planId = ((await p.json()) as { id: string }).id
+  const ids: string[] = []
+  for (let i = 0; i < n; i++) {
+    // 0.8 g at 26 454 J/g (NIST SRM 39j, weighed in air) on 10 cm Ni-Cr fuse: a clear charge in a 33 kJ vessel.
+    const r = await fetch(`${BASE}/api/plans/${planId}/runs`, {
+      method: 'POST', headers: { ...json, cookie: analyst },
+      body: JSON.stringify({ sampleCode: `B-${tag}-${i}`, components: [{ role: 'sample', name: 'bench sample', massG: 0.8, heatingValueJPerG: 26454 }, { role: 'fuse', wire: 'nichrome', lengthCm: 10 }] }),
+    })
+    if (r.status !== 201) throw new Error(`POST runs answered ${r.status}: ${await r.text()}`)
+    ids.push(((await r.json()) as { id: string }).id)
+  }
+  const s = await fetch(`${BASE}/api/plans/${planId}/submit`, { method: 'POST', headers: { ...json, cookie: analyst }, body: '{}' })
+  if (s.status !== 200) throw new Error(`submit answered ${s.status}`)
+  return ids
+}
+
+/** MIXED_USERS concurrent users for MIXED_SECONDS, each cycling through the pages a lab day is made of. */
+async function mixedLoad(lab: LargeLab, analyst: string, supervisor: string, assessBody: string) {
+  const json = { 'content-type': 'application/json' }
+  const steps: { cookie: string, path: string, body?: string }[] = [
+    { cookie: analyst, path: '/api/fleet' },
+    { cookie: analyst, path: `/api/vessels/${lab.vesselId}` },
+    { cookie: analyst, path: `/api/vessels/${lab.vesselId}/firings` },
+    { cookie: analyst, path: `/api/plans/${lab.planId}` },
+    { cookie: analyst, path: '/api/assess', body: assessBody },
+    { cookie: analyst, path: '/api/materials?pageSize=50' },
+    { cookie: supervisor, path: '/api/approvals' },
+    { cookie: supervisor, path: lab.audit },
+  ]
+  const times: number[] = []
+  let errors = 0
+  const deadline = performance.now() + MIXED_SECONDS * 1000
+  await Promise.all(Array.from({ length: MIXED_USERS }, async (_, u) => {
+    let i = u
+    while (performance.now() < deadline) {
+      const s = steps[i++ % steps.length]!
+      const t0 = performance.now()
+      try {
+        const res = await fetch(`${BASE}${s.path}`, s.body ? { method: 'POST', headers: { ...json, cookie: s.cookie }, body: s.body } : { headers: { cookie: s.cookie } })
+        await res.arrayBuffer()
+        if (res.status !== 200) errors++
+      }
+      catch { errors++ }
+      times.push(performance.now() - t0)
+    }
+  }))
+  return { requests: times.length, errors, p50: median(times), p95: p95(times), rps: times.length / MIXED_SECONDS }
+}
+
 async function main() {
   const loadBefore = loadavg()[0] ?? 0
   log('assessCharge in this Node process')
@@ -141,6 +245,34 @@ async function main() {
   log('client JS of /check')
   const weight = await pageWeight(cookie, '/check')
 
+  log('large lab: route latencies (one request at a time, 40 each after 3 warm-up)')
+  const supervisor = await signIn('supervisor@emberline.test')
+  const admin = await signIn('admin@emberline.test')
+  const lab = await largeLab(cookie)
+  const get = (path: string, who = cookie) => () => fetch(`${BASE}${path}`, { headers: { cookie: who } })
+  const routes = [
+    await latency('`GET /api/fleet` (fleet page)', get('/api/fleet')),
+    await latency('`GET /api/vessels/:id` (vessel page)', get(`/api/vessels/${lab.vesselId}`)),
+    await latency('`GET /api/vessels/:id/services`', get(`/api/vessels/${lab.vesselId}/services`)),
+    await latency('`GET /api/vessels/:id/firings` (vessel of 2,000 firings)', get(`/api/vessels/${lab.vesselId}/firings`)),
+    await latency('`GET /api/plans/:id` (plan of 100 runs)', get(`/api/plans/${lab.planId}`)),
+    await latency('`GET /api/approvals` (approvals queue)', get('/api/approvals', supervisor)),
+    await latency('`GET /api/audit?actor=…&from=…` (audit search)', get(lab.audit, supervisor)),
+    await latency('`POST /api/assess`', () => fetch(`${BASE}/api/assess`, { method: 'POST', headers, body: assessBody })),
+  ]
+  log('large lab: 40 firings through the API')
+  const fireIds = await readyRuns(admin, cookie, 43)
+  let nextRun = 0
+  routes.push(await latency('`POST /api/runs/:id/firing` (a firing)', () => fetch(`${BASE}/api/runs/${fireIds[nextRun++]}/firing`, {
+    method: 'POST', headers: { ...headers, 'idempotency-key': crypto.randomUUID() }, body: JSON.stringify({ outcome: 'complete', weighedMassG: 0.8 }),
+  }), 40, 201))
+  log(`large lab: mixed load, ${MIXED_USERS} users for ${MIXED_SECONDS} s`)
+  const mixed = await mixedLoad(lab, cookie, supervisor, assessBody)
+  const pages = ['/', '/vessels', `/vessels/${lab.vesselId}`, '/plans', `/plans/${lab.planId}`, '/materials', '/approvals', '/audit']
+  const weights: [string, Awaited<ReturnType<typeof pageWeight>>][] = []
+  for (const page of pages) weights.push([page, await pageWeight(page === '/audit' || page === '/approvals' ? supervisor : cookie, page)])
+  const rss = peakRssMB()
+
   const conditions = `${CONNECTIONS} connections, ${SECONDS} s in alternating slices, Node ${process.version}, fetch (undici) keep-alive`
   const rows = [
     ['One assessment in Node (`assessCharge`, median)', `${fmt(node.oneUs, 1)} µs`, 'coal + benzoic-acid aid + nickel-chromium fuse; 20,000 runs after 2,000 warm-up'],
@@ -149,6 +281,10 @@ async function main() {
     ['`GET /api/settings` (trivial authenticated route)', `${fmt(trivial.rps)} req/s`, `median latency ${fmt(trivial.p50Ms, 1)} ms; same server and conditions`],
     ['Ratio assess / trivial', fmt(assess.rps / trivial.rps, 2), `aim ≥ 0.5; ${cpus().length} cores, load average ${fmt(loadBefore, 1)} at the start (the load generator shares the machine)`],
     ['Quick check page, client JS', `${fmt(weight.gzipKB, 1)} kB gzip`, `${weight.files} files (${fmt(weight.rawKB, 0)} kB raw) from script and modulepreload tags; formula and SMILES libraries load later, on first use`],
+    ...routes.map(r => [`Large lab: ${r.name}`, `${fmt(r.p50, 1)} ms median, ${fmt(r.p95, 1)} ms p95`, `${r.n} requests one at a time; 50 vessels, 100,000 firings, 20,000 materials, 200,000 audit rows (scripts/bench-seed.ts)`]),
+    ['Large lab: mixed load', `${fmt(mixed.p95, 0)} ms p95, ${mixed.errors} errors`, `${MIXED_USERS} concurrent users for ${MIXED_SECONDS} s over 8 routes (fleet, vessel, firings, plan, assess, materials, approvals, audit): ${fmt(mixed.requests)} requests, ${fmt(mixed.rps)} req/s, median ${fmt(mixed.p50, 0)} ms`],
+    ['Peak server memory (VmHWM)', rss === null ? 'not measured' : `${fmt(rss, 0)} MB`, 'resident set high-water mark of the server process over the whole bench'],
+    ...weights.map(([page, w]) => [`Client JS of \`${page.replace(/[0-9a-f-]{36}/, ':id')}\``, `${fmt(w.gzipKB, 1)} kB gzip`, `${w.files} files (${fmt(w.rawKB, 0)} kB raw) loaded at once`]),
   ]
   const out = ['| Measure | Result | Conditions |', '|---|---|---|', ...rows.map(r => `| ${r.join(' | ')} |`)]
   process.stdout.write(`${out.join('\n')}\n`)

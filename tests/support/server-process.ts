@@ -10,6 +10,9 @@ export interface ServerProcess {
   /** Everything the server printed so far. */
   output: () => string
   stop: () => Promise<void>
+  /** kill -9: no shutdown at all, as a power cut or an out-of-memory kill would leave it (crash-safety tests). */
+  kill: () => Promise<void>
+  pid: number
 }
 
 export async function startServer(env: Record<string, string> = {}): Promise<ServerProcess> {
@@ -32,6 +35,12 @@ export async function startServer(env: Record<string, string> = {}): Promise<Ser
       if (child.exitCode === null) child.kill('SIGKILL')
     }
   }
+  const kill = async () => {
+    if (child.exitCode === null && child.signalCode === null) {
+      child.kill('SIGKILL')
+      await exited
+    }
+  }
   const deadline = Date.now() + 60_000
   for (;;) {
     if (child.exitCode !== null) throw new Error(`server exited:\n${output}`)
@@ -45,5 +54,5 @@ export async function startServer(env: Record<string, string> = {}): Promise<Ser
     }
     await new Promise(r => setTimeout(r, 200))
   }
-  return { baseURL, output: () => output, stop }
+  return { baseURL, output: () => output, stop, kill, pid: child.pid! }
 }
