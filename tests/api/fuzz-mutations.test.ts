@@ -25,7 +25,7 @@ function seeded(seed: number): () => number {
 }
 
 const SEED = 20261201
-const PER_ROUTE = 240
+const PER_ROUTE = 200
 const CONCURRENCY = 8
 const SAMPLE_ID = '00000000-0000-4000-8000-000000000000'
 
