@@ -12,6 +12,7 @@ else
 fi
 # The test database gets its own test mail server, apart from the demo lab's on 2525.
 EMBERLINE_FAKE_SMTP_PORT=2526 bash "$ROOT/scripts/mail.sh" start
+trap 'EMBERLINE_FAKE_SMTP_PORT=2526 bash "$ROOT/scripts/mail.sh" stop >/dev/null 2>&1 || true' EXIT
 export NUXT_SMTP_HOST=127.0.0.1 NUXT_SMTP_PORT=2526
 
 if [ ! -x /usr/bin/chromium ]; then
