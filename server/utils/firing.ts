@@ -236,7 +236,7 @@ export async function recordFiring(event: H3Event) {
         firingsSinceRequalification: sql`${v.firingsSinceRequalification} + 1`,
         firingsTotal: sql`${v.firingsTotal} + 1`,
         updatedAt: now,
-        ...(lockOut ? { condition: 'locked-out', conditionReason: lockReason, conditionSince: now } : {}),
+        ...(lockOut ? { condition: 'locked-out', conditionReason: lockReason, conditionSince: now, notifiedState: 'locked-out' } : {}),
       }).where(eq(v.id, run.vesselId)).returning()
       const after = vesselView(counted!, policy, now)
 
