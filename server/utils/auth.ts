@@ -10,7 +10,7 @@ export interface AuthedUser {
 }
 
 // Routes reachable without a session; every other /api route answers 401 first.
-export const PUBLIC_API_ROUTES = new Set(['POST /api/auth/login', 'GET /api/_auth/session', 'DELETE /api/_auth/session', 'GET /api/health'])
+export const PUBLIC_API_ROUTES = new Set(['POST /api/auth/login', 'GET /api/_auth/session', 'DELETE /api/_auth/session', 'GET /api/health', 'HEAD /api/health'])
 
 /**
  * Resolves the signed-in user from the sealed cookie and the database: a disabled user, a user
