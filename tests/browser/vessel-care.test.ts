@@ -76,7 +76,8 @@ describe('vessel care in Chromium', () => {
     await page.getByRole('button', { name: 'Sign and record' }).click()
 
     await page.getByRole('status').filter({ hasText: 'Routine service recorded' }).waitFor()
-    await expect(page.locator('main [data-state]').first().textContent()).resolves.toContain('Awaiting check run')
+    // The notice comes with the answer; the page's data follows a moment later.
+    await expect.poll(() => page.locator('main [data-state]').first().textContent()).toContain('Awaiting check run')
     const history = page.getByTestId('service-history')
     await expect(history.textContent()).resolves.toMatch(/Routine seal service.*Head O-ring \(lot HO-2611\) — renewed.*1 × Seal kit \(lot SK-2611\).*Signed by Sam Adeyemi/s)
     const thumb = history.getByTestId('thumbnail').first()
