@@ -21,19 +21,13 @@ import {
   screenComponent,
 } from './screening'
 import type { StructureAnalysis } from './structure'
+import type { VesselState } from './vessel-state'
 
 // ───────────────────────────── public contract (DESIGN §6, POST /api/assess) ─────────────────────────────
 
 export type VesselClass = 'standard' | 'high-strength'
-export type VesselState =
-  | 'in-service'
-  | 'service-due'
-  | 'overdue'
-  | 'requalification-due'
-  | 'locked-out'
-  | 'away'
-  | 'awaiting-verification'
-  | 'retired'
+// The vessel's states are those of the one state function (DESIGN.md §5).
+export type { VesselState }
 export type ComponentRole = 'sample' | 'aid' | 'fuse'
 export type RunRole = 'sample' | 'standardisation' | 'check'
 export type Severity = 'block' | 'approval' | 'info'
