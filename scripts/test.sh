@@ -11,9 +11,10 @@ else
   EMBERLINE_USE_GIVEN_DB=0 setup_database emberline_test fresh
 fi
 # The test database gets its own test mail server, apart from the demo lab's on 2525.
-EMBERLINE_FAKE_SMTP_PORT=2526 bash "$ROOT/scripts/mail.sh" start
-trap 'EMBERLINE_FAKE_SMTP_PORT=2526 bash "$ROOT/scripts/mail.sh" stop >/dev/null 2>&1 || true' EXIT
-export NUXT_SMTP_HOST=127.0.0.1 NUXT_SMTP_PORT=2526
+SMTP_PORT="${EMBERLINE_TEST_SMTP_PORT:-2526}"
+EMBERLINE_FAKE_SMTP_PORT=$SMTP_PORT bash "$ROOT/scripts/mail.sh" start
+trap 'EMBERLINE_FAKE_SMTP_PORT=$SMTP_PORT bash "$ROOT/scripts/mail.sh" stop >/dev/null 2>&1 || true' EXIT
+export NUXT_SMTP_HOST=127.0.0.1 NUXT_SMTP_PORT=$SMTP_PORT
 
 if [ ! -x /usr/bin/chromium ]; then
   say "installing Debian's chromium for the browser tests"
