@@ -2,7 +2,7 @@
 import { type Composition, toDryBasis } from './composition'
 import type { LabPolicy } from './policy'
 
-export type HeatingValueSource = 'declared' | 'material' | 'correlation' | 'policy-fallback' | 'fuse-wire' | 'cotton'
+export type HeatingValueSource = 'declared' | 'material' | 'correlation' | 'element-oxide' | 'policy-fallback' | 'fuse-wire' | 'cotton'
 export type WireType = 'nichrome' | 'iron' | 'platinum' | 'cotton'
 
 export type CorrelationField = 'C' | 'H' | 'O' | 'N' | 'S' | 'ash'
@@ -66,7 +66,8 @@ export function heatingValueFromComposition(c: Composition): CorrelationEstimate
   const moisture = dry.moisture ?? 0
   return {
     hhvDryMJPerKg,
-    hhvAsFiredJPerG: Math.max(0, hhvDryMJPerKg * 1000 * (1 - moisture / 100)),
+    // Never clipped: a result at or below zero says the correlation does not fit, and the caller falls back.
+    hhvAsFiredJPerG: hhvDryMJPerKg * 1000 * (1 - moisture / 100),
     violations: correlationRangeViolations(dry),
     dry,
   }
@@ -96,6 +97,8 @@ export interface HeatingValueChoice {
   /** Where the composition came from when the correlation was used. */
   compositionFrom?: 'given' | 'derived' | undefined
   estimate?: CorrelationEstimate | undefined
+  /** Why the policy value was used although something was known. */
+  fallbackReason?: string | undefined
 }
 
 /**
@@ -106,13 +109,13 @@ export function chooseHeatingValue(input: HeatingValueInput, policy: LabPolicy):
   if (input.heatingValueJPerG !== undefined) {
     return { jPerG: input.heatingValueJPerG, source: input.heatingValueFrom === 'material' ? 'material' : 'declared' }
   }
-  if (input.composition !== undefined) {
-    const estimate = heatingValueFromComposition(input.composition)
-    return { jPerG: estimate.hhvAsFiredJPerG, source: 'correlation', compositionFrom: 'given', estimate }
-  }
-  if (input.derivedComposition !== undefined) {
-    const estimate = heatingValueFromComposition(input.derivedComposition)
-    return { jPerG: estimate.hhvAsFiredJPerG, source: 'correlation', compositionFrom: 'derived', estimate }
+  for (const [composition, from] of [[input.composition, 'given'], [input.derivedComposition, 'derived']] as const) {
+    if (composition === undefined) continue
+    const estimate = heatingValueFromComposition(composition)
+    if (estimate.hhvAsFiredJPerG <= 0) {
+      return { jPerG: policy.fallbackHeatingValueJPerG, source: 'policy-fallback', estimate, fallbackReason: `the correlation gives ${Math.round(estimate.hhvAsFiredJPerG)} J/g, which is not a heating value` }
+    }
+    return { jPerG: estimate.hhvAsFiredJPerG, source: 'correlation', compositionFrom: from, estimate }
   }
   return { jPerG: policy.fallbackHeatingValueJPerG, source: 'policy-fallback' }
 }

@@ -7,7 +7,7 @@ export const GAS_CONSTANT = 8.314462618
 export const STANDARD_ATMOSPHERE_MPA = 0.101325
 /** Mole fraction of O2 in dry air (ISO 2533 standard atmosphere, 20.946 % by volume, rounded as in the design brief). */
 export const AIR_OXYGEN_MOLE_FRACTION = 0.2095
-/** Heat released per gram of O2 consumed by most organic fuels, J/g (Huggett 1980, Fire and Materials 4:61). */
+/** Net heat released per gram of O2 consumed by most organic fuels, J/g (Huggett 1980, Fire and Materials 4:61; net heat of combustion basis). */
 export const HUGGETT_J_PER_G_O2 = 13100
 /** Molar mass of O2, g/mol (IUPAC atomic weights). */
 export const O2_MOLAR_MASS = 2 * 15.999
@@ -35,34 +35,52 @@ export interface CombustionPerGram {
 }
 
 /**
- * Complete combustion of one gram as fired: C → CO2, H → H2O, S → SO2, N → N2, Cl → HCl (stoichiometry,
- * IUPAC atomic weights). Demand = C/12.011 + H/4.032 + S/32.06 − O/31.998, less Cl/141.8 because each Cl
- * takes one H as HCl, so that H no longer needs ¼ O2. Chlorine beyond the hydrogen is counted as HCl too.
- * Moisture leaves as water vapour and needs no oxygen. The demand is negative for oxygen-rich substances.
+ * Complete combustion of one gram as fired (stoichiometry, IUPAC atomic weights): C → CO2, H → H2O, N → N2,
+ * Cl → HCl as far as the sample's own hydrogen goes and Cl2 beyond it (no oxygen either way), and S → H2SO4
+ * (SO2 + ½ O2 + H2O, 1.5 O2 per S) because in a vessel with water the sulfur ends as sulfuric acid, which takes
+ * more oxygen than SO2 (1 O2 per S): the larger demand is used. Demand = C/12.011 + H'/4.032 + 1.5·S/32.06 −
+ * O/31.998, H' the hydrogen not bound as HCl. Moisture leaves as water vapour and needs no oxygen. The sulfur is
+ * left in the gas as SO2 for the peak-pressure bound (more gas, so the bound stays an upper bound); Cl2 is
+ * counted with HCl (both diatomic gases). The demand is negative for oxygen-rich substances.
  */
 export function combustionPerGram(f: AsFiredFractions): CombustionPerGram {
   const nH = f.H / A_H
   const nCl = f.Cl / A_Cl
   const hcl = Math.min(nH, nCl)
+  const cl2 = (nCl - hcl) / 2
   const waterH = nH - hcl
   return {
-    oxygenDemandMol: f.C / A_C + waterH / 4 + f.S / A_S - f.O / O2_MOLAR_MASS,
+    oxygenDemandMol: f.C / A_C + waterH / 4 + (SULFUR_OXYGEN_PER_ATOM * f.S) / A_S - f.O / O2_MOLAR_MASS,
     co2Mol: f.C / A_C,
     h2oMol: waterH / 2 + f.moisture / WATER_MOLAR_MASS,
     so2Mol: f.S / A_S,
-    hclMol: nCl,
+    hclMol: hcl + cl2,
     n2Mol: f.N / A_N / 2,
   }
 }
 
-/** O2 demand per gram as fired, mol/g: C/12.011 + H/4.032 + S/32.06 − O/31.998 (stoichiometry; Cl to HCl). */
+/** O2 per S atom: 1.5 to H2SO4 (the larger of SO2, 1, and H2SO4, 1.5; stoichiometry). */
+export const SULFUR_OXYGEN_PER_ATOM = 1.5
+/** Sulfur product the oxygen demand is computed for. */
+export const SULFUR_PRODUCT = 'H2SO4'
+
+/** O2 demand per gram as fired, mol/g: C/12.011 + H/4.032 + 1.5·S/32.06 − O/31.998 (stoichiometry; S to H2SO4; Cl to HCl). */
 export function oxygenDemandMolPerG(c: Composition): number {
   return combustionPerGram(asFiredFractions(c)).oxygenDemandMol
 }
 
-/** O2 demand estimated from heat, mol = Q / 13,100 J per g O2 / 31.998 g/mol (Huggett 1980, Fire and Materials 4:61). */
-export function oxygenDemandFromHeatMol(heatJ: number): number {
-  return heatJ / HUGGETT_J_PER_G_O2 / O2_MOLAR_MASS
+/** Enthalpy of vaporisation of water at 25 °C, J/mol: ΔfH°(H2O, l) − ΔfH°(H2O, g) = −285.830 + 241.826 kJ/mol (CODATA key values). */
+export const WATER_VAPORISATION_J_PER_MOL = 44004
+
+/**
+ * O2 demand estimated from a gross heat, mol. Huggett's 13.1 kJ per g O2 (Huggett 1980, Fire and Materials 4:61)
+ * was derived for the NET heat of combustion (water as vapour), so the gross heat is first turned to net with the
+ * water an unknown fuel forms, taken as that of (CH2)n (2/3 mol H2O per mol O2, common practice assumption):
+ * n = Q_gross / (13,100·31.998 + (2/3)·44,004) J/mol. With waterFree (metal fuse wire), net = gross.
+ */
+export function oxygenDemandFromHeatMol(grossHeatJ: number, waterFree = false): number {
+  const perMolO2 = HUGGETT_J_PER_G_O2 * O2_MOLAR_MASS + (waterFree ? 0 : (2 / 3) * WATER_VAPORISATION_J_PER_MOL)
+  return grossHeatJ / perMolO2
 }
 
 /** Gauge (as read on the regulator) to absolute pressure, adding one standard atmosphere (NIST SP 811). */

@@ -29,6 +29,10 @@ export interface LabPolicy {
   oxidiserFractionLimitPct: number
   energeticObThresholdPct: number
   decompositionEnergyThresholdJPerG: number
+  decompositionOnsetLimitC: number
+  volatileBoilingPointC: number
+  halogenSharePct: number
+  minSampleMassG: number
   weakSampleMinHeatReleaseJ: number
   aidHeatingValueJPerG: number
   sampleDensityGPerMl: number
@@ -54,7 +58,7 @@ export const DEFAULT_POLICY: LabPolicy = {
   approvalEnergyFraction: 0.9,
   minOxygenExcess: 1,
   approvalOxygenExcess: 3,
-  fallbackHeatingValueJPerG: 46000,
+  fallbackHeatingValueJPerG: 50000,
   waterMl: 1,
   labTemperatureC: 25,
   fillPressureWindowMinMPa: 2.8,
@@ -67,6 +71,10 @@ export const DEFAULT_POLICY: LabPolicy = {
   oxidiserFractionLimitPct: 15,
   energeticObThresholdPct: -200,
   decompositionEnergyThresholdJPerG: 500,
+  decompositionOnsetLimitC: 500,
+  volatileBoilingPointC: 100,
+  halogenSharePct: 2,
+  minSampleMassG: 0.01,
   weakSampleMinHeatReleaseJ: 10000,
   aidHeatingValueJPerG: 26454,
   sampleDensityGPerMl: 1,
@@ -113,6 +121,10 @@ export const labPolicySchema = z
     oxidiserFractionLimitPct: z.number().min(0).max(100),
     energeticObThresholdPct: z.number().min(-1000).max(0),
     decompositionEnergyThresholdJPerG: nonNegative().max(10000),
+    decompositionOnsetLimitC: z.number().min(0).max(1000),
+    volatileBoilingPointC: z.number().min(-50).max(400),
+    halogenSharePct: z.number().min(0).max(100),
+    minSampleMassG: z.number().min(0.001).max(10),
     weakSampleMinHeatReleaseJ: nonNegative().max(200000),
     aidHeatingValueJPerG: positive().max(150000),
     sampleDensityGPerMl: z.number().min(0.1).max(25),
@@ -162,7 +174,7 @@ export const POLICY_DESCRIPTIONS: Readonly<Record<keyof LabPolicy, PolicyDescrip
   approvalEnergyFraction: { label: 'Approval above this fraction of the vessel rating', unit: '—', source: 'common practice' },
   minOxygenExcess: { label: 'Block below this oxygen excess', unit: 'available / demand', source: 'stoichiometry (complete combustion needs at least 1)' },
   approvalOxygenExcess: { label: 'Approval below this oxygen excess', unit: 'available / demand', source: 'common practice' },
-  fallbackHeatingValueJPerG: { label: 'Heating value assumed when nothing is known', unit: 'J/g', source: 'common practice (above most hydrocarbons)' },
+  fallbackHeatingValueJPerG: { label: 'Heating value assumed when nothing is known', unit: 'J/g', source: 'lab decision: above every pure liquid hydrocarbon (n-pentane about 48.6 kJ/g, isooctane 47.8 kJ/g, ASTM D240)' },
   waterMl: { label: 'Water placed in the vessel', unit: 'mL', source: 'ISO 1928 / ASTM D5865 (from memory)' },
   labTemperatureC: { label: 'Laboratory temperature', unit: '°C', source: 'common practice' },
   fillPressureWindowMinMPa: { label: 'Method fill window, lower end', unit: 'MPa gauge', source: 'ISO 1928: 3.0 ± 0.2 MPa (from memory)' },
@@ -174,7 +186,11 @@ export const POLICY_DESCRIPTIONS: Readonly<Record<keyof LabPolicy, PolicyDescrip
   cottonJPerG: { label: 'Cotton thread energy', unit: 'J/g', source: 'secondary sources (from memory)' },
   oxidiserFractionLimitPct: { label: 'Inorganic oxidiser in a mixture with organics counts as energetic above', unit: '% of the charge mass', source: 'UN Manual of Tests and Criteria, Appendix 6 (packing groups I/II)' },
   energeticObThresholdPct: { label: 'Screen clears explosophores below this oxygen balance', unit: '%', source: 'UN Manual of Tests and Criteria, Appendix 6' },
-  decompositionEnergyThresholdJPerG: { label: 'Screen clears explosophores below this decomposition energy', unit: 'J/g', source: 'UN Manual of Tests and Criteria, Appendix 6' },
+  decompositionEnergyThresholdJPerG: { label: 'Screen clears explosophores below this decomposition energy (library record only)', unit: 'J/g', source: 'UN Manual of Tests and Criteria, Appendix 6' },
+  decompositionOnsetLimitC: { label: 'Decomposition onset must be below', unit: '°C', source: 'UN Manual of Tests and Criteria, Appendix 6' },
+  volatileBoilingPointC: { label: 'Volatile sample: boiling point below', unit: '°C', source: 'lab decision (sealed capsule or tape needed)' },
+  halogenSharePct: { label: 'Halogen-resistant vessel needed above this chlorine share', unit: '% of the sample mass', source: 'lab decision (hydrochloric acid attacks the vessel)' },
+  minSampleMassG: { label: 'Smallest sample mass fired', unit: 'g', source: 'lab decision (balance resolution and a meaningful heat release)' },
   weakSampleMinHeatReleaseJ: { label: 'Suggest a combustion aid below this heat release', unit: 'J', source: 'common practice' },
   aidHeatingValueJPerG: { label: 'Combustion aid (benzoic acid) heating value', unit: 'J/g', source: 'NIST SRM 39j certificate (weighed in air)' },
   sampleDensityGPerMl: { label: 'Sample density assumed for the free volume', unit: 'g/mL', source: 'common practice' },

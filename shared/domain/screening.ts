@@ -1,46 +1,86 @@
-// Energetic screening of a component (UN Manual of Tests and Criteria, Appendix 6).
+// Energetic screening of a component by the rules of UN Manual of Tests and Criteria, Appendix 6.
 import { type AtomCounts, type Composition, asFiredFractions, ATOMIC_WEIGHTS } from './composition'
+import { METALS } from './elements'
+import { recogniseFromFormula } from './formula-groups'
 import type { LabPolicy } from './policy'
 
-/** Groups associated with explosive properties (UN Manual of Tests and Criteria, Appendix 6, Table A6.1). */
+/**
+ * Groups associated with explosive properties (UN Manual of Tests and Criteria, Appendix 6, Table A6.1), with
+ * whether the group itself contains oxygen: the oxygen-balance exemption applies only to those that do.
+ */
 export const EXPLOSOPHORE_GROUPS = {
-  'nitro': 'nitro group on C or N (nitro compounds, nitramines)',
-  'nitrate-ester': 'nitrate ester, C–O–NO2',
-  'nitrate': 'nitrate anion or nitric acid',
-  'nitroso': 'nitroso group, C–N=O or N–N=O',
-  'n-oxide': 'N-oxide (amine oxides, aromatic N-oxides, nitrones)',
-  'azide': 'azide, –N3',
-  'azo': 'azo group, C–N=N–C',
-  'diazo': 'diazo compound or diazonium salt',
-  'hydrazine': 'N–N single bond (hydrazines, hydrazides, N-amino heterocycles)',
-  'peroxide': 'peroxide, O–O',
-  'ozonide': 'ozonide ring',
-  'n-halogen': 'N–halogen bond (chloramines, fluoroamines)',
-  'chlorate': 'chlorate, perchlorate and other O–halogen oxyanions',
-  'acetylide': 'acetylide, metal–C≡C or C≡C anion',
-  'fulminate': 'fulminate or nitrile oxide, C≡N–O',
-  'acetylene': 'C≡C triple bond (acetylenes)',
-} as const
+  'acetylene': { label: 'C≡C triple bond (acetylene)', oxygen: false },
+  'acetylide': { label: 'acetylide (metal–C≡C or C≡C anion)', oxygen: false },
+  '1,2-diene': { label: '1,2-diene (allene, C=C=C)', oxygen: false },
+  'c-metal': { label: 'carbon–metal bond', oxygen: false },
+  'n-metal': { label: 'nitrogen–metal bond', oxygen: false },
+  'azide': { label: 'azide (–N3 or N3⁻)', oxygen: false },
+  'azo': { label: 'azo group (C–N=N–C)', oxygen: false },
+  'diazo': { label: 'diazo compound or diazonium salt', oxygen: false },
+  'hydrazine': { label: 'hydrazine (N–N single bond)', oxygen: false },
+  // Counted as a contiguous-nitrogen group: the sulfonyl oxygens are not part of the N–N group itself.
+  'sulfonyl-hydrazide': { label: 'sulfonyl hydrazide (S(=O)2–N–N)', oxygen: false },
+  'peroxide': { label: 'peroxide (O–O)', oxygen: true },
+  'ozonide': { label: 'ozonide ring', oxygen: true },
+  'hydroxylamine': { label: 'hydroxylamine (N–O single bond)', oxygen: true },
+  'nitrate-ester': { label: 'nitrate ester (C–O–NO2)', oxygen: true },
+  'nitrate': { label: 'nitrate (NO3⁻ or HNO3)', oxygen: true },
+  'nitro': { label: 'nitro group (C–NO2 or N–NO2)', oxygen: true },
+  'nitroso': { label: 'nitroso group (C–N=O or N–N=O)', oxygen: true },
+  'n-oxide': { label: 'N-oxide', oxygen: true },
+  '1,2-oxazole': { label: '1,2-oxazole ring (isoxazole)', oxygen: true },
+  'fulminate': { label: 'fulminate or nitrile oxide (C≡N–O)', oxygen: true },
+  'n-halogen': { label: 'N–halogen bond', oxygen: false },
+  'o-halogen': { label: 'O–halogen (chlorate, perchlorate, iodosyl)', oxygen: true },
+} as const satisfies Record<string, { label: string; oxygen: boolean }>
 
 export type ExplosophoreGroup = keyof typeof EXPLOSOPHORE_GROUPS
 
 export type DeclaredHazard = 'none' | 'energetic' | 'oxidiser'
 
-/**
- * energetic: treat as explosive; unclearable: formula only, the screen cannot clear it; oxidiser: declared,
- * judged on its share of the charge; cleared: the screen clears it; not-screened: nothing to screen on.
- */
-export type ScreeningStatus = 'energetic' | 'unclearable' | 'oxidiser' | 'cleared' | 'not-screened'
+/** Strictness of a declared hazard: a run may raise it, never lower it. */
+export const HAZARD_RANK: Readonly<Record<DeclaredHazard, number>> = { none: 0, oxidiser: 1, energetic: 2 }
 
-/** What cleared a component: nothing found, or a finding outweighed by oxygen balance or decomposition energy. */
-export type ClearedBy = 'no-groups' | 'no-n-and-o' | 'oxygen-balance' | 'decomposition-energy'
+/** The stricter of two declared hazards. */
+export function stricterHazard(a: DeclaredHazard | undefined, b: DeclaredHazard | undefined): DeclaredHazard | undefined {
+  if (a === undefined) return b
+  if (b === undefined) return a
+  return HAZARD_RANK[b] > HAZARD_RANK[a] ? b : a
+}
+
+/** Material categories whose ultimate analysis identifies them well enough: natural fuels and foods (not screened by groups). */
+export const COMPOSITION_CATEGORIES = ['coal', 'coke', 'biomass', 'liquid fuel', 'waste fuel', 'food', 'feed', 'polymer'] as const
+
+/**
+ * energetic: treat as explosive; structure-needed: a formula that could hold a group; identity-unknown: nothing
+ * says what it is; cleared: the screen clears it. An oxidiser is flagged apart and judged on its share.
+ */
+export type ScreeningStatus = 'energetic' | 'structure-needed' | 'identity-unknown' | 'cleared'
+
+/** What cleared a component. */
+export type ClearedBy = 'no-groups' | 'formula-cannot-hold-group' | 'oxygen-balance' | 'decomposition-energy' | 'category' | 'library-classification'
+
+/** Decomposition energy as recorded in the materials library by a supervisor, with its evidence. */
+export interface DecompositionRecord {
+  energyJPerG: number
+  onsetC?: number | undefined
+  method?: string | undefined
+  evidence?: string | undefined
+  recordedBy?: string | undefined
+}
 
 export interface ScreeningResult {
   status: ScreeningStatus
   reasons: string[]
   groups: ExplosophoreGroup[]
+  /** The Appendix 6 rule (or identity rule) that decided the status. */
+  rule: string
   oxygenBalancePct?: number
   clearedBy?: ClearedBy
+  /** Inorganic oxidiser, declared or recognised from the formula: judged on its share of the charge. */
+  oxidiser?: { recognised: string } | undefined
+  /** The component holds organic matter (carbon) for the oxidiser-mixture rule. */
+  organic: boolean
 }
 
 export interface ScreeningInput {
@@ -50,7 +90,15 @@ export interface ScreeningInput {
   /** Atom counts from a formula or structure. */
   atoms?: AtomCounts | undefined
   molarMassGPerMol?: number | undefined
-  decompositionEnergyJPerG?: number | undefined
+  /** A composition (ultimate analysis) was given. */
+  composition?: Composition | undefined
+  category?: string | undefined
+  /** The materials library recorded this component's classification (a supervisor or a shipped reference). */
+  libraryClassification?: string | undefined
+  /** Decomposition energy with its evidence, from the materials library only. */
+  decompositionRecord?: DecompositionRecord | undefined
+  /** A decomposition energy typed on a run or a quick check: shown, never used to clear. */
+  typedDecompositionEnergyJPerG?: number | undefined
 }
 
 const A_O = ATOMIC_WEIGHTS.O ?? 15.999
@@ -85,55 +133,118 @@ function fmtLimit(x: number): string {
   return `${x < 0 ? '−' : ''}${Math.abs(x)} %`
 }
 
+const HALOGENS = ['F', 'Cl', 'Br', 'I']
+
 /**
- * Screen one component (UN Manual of Tests and Criteria, Appendix 6): declared energetic → energetic;
- * with a structure, energetic when it has an explosophore AND OB > −200 % AND decomposition energy unknown or
- * ≥ 500 J/g; with a formula only, N and O together with OB > −200 % cannot be cleared (DESIGN §3.5).
+ * Why a formula alone could hold a Table A6.1 group, or undefined when it cannot: N with O; two or more N; two or
+ * more O with OB above the limit; a halogen with O or N; a metal with C, N or O (the product's identity rule).
+ */
+export function formulaCouldHoldGroup(atoms: AtomCounts, ob: number | undefined, obLimit: number): string | undefined {
+  const n = atoms.N ?? 0
+  const o = atoms.O ?? 0
+  const halogen = HALOGENS.some(x => (atoms[x] ?? 0) > 0)
+  const metals = Object.keys(atoms).filter(k => METALS.has(k) && (atoms[k] ?? 0) > 0)
+  if (n > 0 && o > 0) return 'it holds both N and O (nitro, nitrate, nitroso, N-oxide, N–O or 1,2-oxazole possible)'
+  if (n >= 2) return 'it holds two or more N (azide, azo, diazo or hydrazine possible)'
+  if (o >= 2 && (ob === undefined || ob > obLimit)) return `it holds two or more O with oxygen balance ${ob === undefined ? 'unknown' : fmtPct(ob)} above ${fmtLimit(obLimit)} (peroxide or ozonide possible)`
+  if (halogen && (o > 0 || n > 0)) return 'it holds a halogen with O or N (chlorate, perchlorate, iodosyl or N–halogen possible)'
+  if (metals.length > 0 && ((atoms.C ?? 0) > 0 || n > 0 || o > 0)) return `it holds ${metals.join(', ')} with C, N or O (acetylide, C–metal, N–metal, azide or metal peroxide possible)`
+  return undefined
+}
+
+function groupNames(groups: readonly ExplosophoreGroup[]): string {
+  return groups.map(g => EXPLOSOPHORE_GROUPS[g].label).join(', ')
+}
+
+/**
+ * Screens one component by UN Manual of Tests and Criteria, Appendix 6: a declared hazard stands; with a
+ * structure, any Table A6.1 group is energetic unless every group found contains oxygen and OB < −200 %, or the
+ * materials library holds a supervisor's decomposition energy < 500 J/g with onset < 500 °C, method and evidence
+ * for an organic substance. Without a structure the identity rules apply (formula, composition with category,
+ * library classification); inorganic oxidisers are recognised from the formula.
  */
 export function screenComponent(input: ScreeningInput, policy: LabPolicy): ScreeningResult {
-  const ob = input.atoms && input.molarMassGPerMol ? oxygenBalancePct(input.atoms, input.molarMassGPerMol) : undefined
-  const groups = input.groups ? [...input.groups] : []
-  const result = (status: ScreeningStatus, reason: string, clearedBy?: ClearedBy): ScreeningResult => {
-    const out: ScreeningResult = { status, reasons: [reason], groups }
+  const atoms = input.atoms
+  const ob = atoms && input.molarMassGPerMol ? oxygenBalancePct(atoms, input.molarMassGPerMol) : undefined
+  const organic = atoms ? (atoms.C ?? 0) > 0 : input.composition ? (input.composition.C ?? 0) > 0 : true
+  const fromFormula = atoms && input.groups === undefined ? recogniseFromFormula(atoms) : undefined
+  const groups: ExplosophoreGroup[] = input.groups ? [...input.groups] : [...(fromFormula?.groups ?? [])]
+  let oxidiser: ScreeningResult['oxidiser']
+  if (fromFormula?.oxidiser) oxidiser = { recognised: fromFormula.oxidiser }
+  if (input.declaredHazard === 'oxidiser') oxidiser = { recognised: oxidiser ? `${oxidiser.recognised}, declared an oxidiser` : 'declared an oxidiser' }
+
+  const result = (status: ScreeningStatus, rule: string, reason: string, clearedBy?: ClearedBy): ScreeningResult => {
+    const out: ScreeningResult = { status, reasons: [reason], groups, rule, organic }
     if (ob !== undefined) out.oxygenBalancePct = ob
     if (clearedBy) out.clearedBy = clearedBy
+    if (oxidiser) out.oxidiser = oxidiser
+    if (input.typedDecompositionEnergyJPerG !== undefined && status !== 'cleared') {
+      out.reasons.push(`the decomposition energy of ${input.typedDecompositionEnergyJPerG} J/g typed here is shown, never used to clear: only a supervisor's record in the materials library, with onset temperature, method and evidence, can`)
+    }
     return out
   }
   const obLimit = policy.energeticObThresholdPct
   const edLimit = policy.decompositionEnergyThresholdJPerG
-  const ed = input.decompositionEnergyJPerG
-  const lowEd = ed !== undefined && ed < edLimit
+  const onsetLimit = policy.decompositionOnsetLimitC
 
-  if (input.declaredHazard === 'energetic') return result('energetic', 'declared energetic by the planner')
-  if (input.declaredHazard === 'oxidiser') return result('oxidiser', 'declared an oxidiser by the planner')
-  if (input.groups !== undefined) {
-    if (groups.length === 0) return result('cleared', 'no group associated with explosive properties', 'no-groups')
-    const names = groups.join(', ')
-    if (ob !== undefined && ob <= obLimit) {
-      return result('cleared', `${names} found, but oxygen balance ${fmtPct(ob)} is not above ${fmtLimit(obLimit)}`, 'oxygen-balance')
+  if (input.declaredHazard === 'energetic') {
+    return result('energetic', 'declared energetic', input.libraryClassification ? 'declared energetic in the materials library' : 'declared energetic by the planner')
+  }
+
+  if (groups.length > 0) {
+    const names = groupNames(groups)
+    const where = input.groups ? 'in the structure' : 'from the formula'
+    const allOxygen = groups.every(g => EXPLOSOPHORE_GROUPS[g].oxygen)
+    if (ob !== undefined && ob < obLimit && allOxygen) {
+      return result('cleared', 'Appendix 6 oxygen-balance exemption (groups containing oxygen, OB below −200 %)', `${names} found ${where}, but every group found contains oxygen and the oxygen balance ${fmtPct(ob)} is below ${fmtLimit(obLimit)}`, 'oxygen-balance')
     }
-    if (lowEd) return result('cleared', `${names} found, but decomposition energy ${ed} J/g is below ${edLimit} J/g`, 'decomposition-energy')
-    const obText = ob === undefined ? 'oxygen balance unknown' : `oxygen balance ${fmtPct(ob)} above ${fmtLimit(obLimit)}`
-    const edText = ed === undefined ? 'decomposition energy unknown' : `decomposition energy ${ed} J/g ≥ ${edLimit} J/g`
-    return result('energetic', `${names} found; ${obText}; ${edText}`)
+    const d = input.decompositionRecord
+    const evidenced = d && d.recordedBy && d.method && d.evidence && d.onsetC !== undefined
+    if (d && evidenced && organic && d.energyJPerG < edLimit && d.onsetC! < onsetLimit) {
+      return result('cleared', 'Appendix 6 decomposition-energy exemption (organic substance, below 500 J/g, onset below 500 °C)', `${names} found ${where}, but the materials library records a decomposition energy of ${d.energyJPerG} J/g (onset ${d.onsetC} °C, ${d.method}, evidence ${d.evidence}) below ${edLimit} J/g`, 'decomposition-energy')
+    }
+    const why: string[] = []
+    if (ob === undefined) why.push('oxygen balance unknown')
+    else if (!allOxygen && ob < obLimit) why.push(`oxygen balance ${fmtPct(ob)} is below ${fmtLimit(obLimit)}, but the exemption does not apply to ${groupNames(groups.filter(g => !EXPLOSOPHORE_GROUPS[g].oxygen))}, which contain no oxygen`)
+    else why.push(`oxygen balance ${fmtPct(ob)} is not below ${fmtLimit(obLimit)}`)
+    if (d && !organic) why.push('the decomposition-energy exemption applies to organic substances only')
+    else if (d && !evidenced) why.push('the recorded decomposition energy lacks its onset temperature, method, evidence or the supervisor who recorded it')
+    else if (d) why.push(`the recorded decomposition energy ${d.energyJPerG} J/g (onset ${d.onsetC} °C) does not meet < ${edLimit} J/g with onset < ${onsetLimit} °C`)
+    else why.push('no decomposition energy recorded in the materials library')
+    return result('energetic', 'UN Manual of Tests and Criteria, Appendix 6, Table A6.1 group without exemption', `${names} found ${where}; ${why.join('; ')}`)
   }
-  if (input.atoms !== undefined && ob !== undefined) {
-    const hasNAndO = (input.atoms.N ?? 0) > 0 && (input.atoms.O ?? 0) > 0
-    if (!hasNAndO) return result('cleared', 'formula does not hold both N and O', 'no-n-and-o')
-    if (ob <= obLimit) return result('cleared', `formula has N and O, but oxygen balance ${fmtPct(ob)} is not above ${fmtLimit(obLimit)}`, 'oxygen-balance')
-    if (lowEd) return result('cleared', `formula has N and O, but decomposition energy ${ed} J/g is below ${edLimit} J/g`, 'decomposition-energy')
-    return result('unclearable', `formula has N and O with oxygen balance ${fmtPct(ob)} above ${fmtLimit(obLimit)} and no structure to screen`)
+
+  if (input.groups !== undefined) {
+    return result('cleared', 'Appendix 6: no group of Table A6.1', 'no group of Table A6.1 in the structure', 'no-groups')
   }
-  return result('not-screened', 'no formula or structure to screen')
+  if (input.libraryClassification) {
+    return result('cleared', 'identity recorded in the materials library', `classified in the materials library (${input.libraryClassification})`, 'library-classification')
+  }
+  if (atoms) {
+    if (oxidiser && fromFormula?.oxidiser) {
+      return result('cleared', 'Appendix 6 oxidising mixtures: judged on the oxidiser share', `recognised from the formula as ${fromFormula.oxidiser}`, 'no-groups')
+    }
+    const could = formulaCouldHoldGroup(atoms, ob, obLimit)
+    if (could) return result('structure-needed', 'identity: a formula alone cannot clear a possible Table A6.1 group', `formula only, and ${could}`)
+    return result('cleared', 'identity: the formula cannot hold any Table A6.1 group', 'the formula cannot hold any group of Table A6.1', 'formula-cannot-hold-group')
+  }
+  if (input.composition) {
+    const category = input.category
+    if (category && (COMPOSITION_CATEGORIES as readonly string[]).includes(category)) {
+      return result('cleared', 'identity: ultimate analysis of a named material category', `ultimate analysis of a ${category} (natural fuels, foods and polymers are not screened by groups)`, 'category')
+    }
+    return result('identity-unknown', 'identity: an ultimate analysis clears only with its material category', category ? `an ultimate analysis of category "${category}" does not say which compound it is` : 'an ultimate analysis without a material category does not say what the sample is')
+  }
+  return result('identity-unknown', 'identity: nothing says what the sample is', 'no structure, formula, composition or library record')
 }
 
-/** Share of declared oxidisers in the charge mass, % (UN Manual of Tests and Criteria, Appendix 6: limit 15 %). */
-export function oxidiserFractionPct(components: readonly { massG: number; declaredHazard?: DeclaredHazard | undefined }[]): number {
+/** Share of oxidisers in the charge mass, % (UN Manual of Tests and Criteria, Appendix 6: limit 15 %). */
+export function oxidiserFractionPct(components: readonly { massG: number; oxidiser: boolean }[]): number {
   let oxidiser = 0
   let total = 0
   for (const c of components) {
     total += c.massG
-    if (c.declaredHazard === 'oxidiser') oxidiser += c.massG
+    if (c.oxidiser) oxidiser += c.massG
   }
   return total > 0 ? (oxidiser / total) * 100 : 0
 }

@@ -14,23 +14,31 @@ export interface StructureAnalysis {
 }
 
 // SMARTS of each group of UN Manual of Tests and Criteria, Appendix 6, Table A6.1 (charges matched exactly).
+// Azo compounds are matched on any carbon (the Table names aliphatic azo; aromatic ones are flagged too, to err safe).
+const METAL_LIST = 'Li,Na,K,Rb,Cs,Be,Mg,Ca,Sr,Ba,Al,Ga,In,Tl,Sn,Pb,Bi,Ti,Zr,Hf,V,Cr,Mn,Fe,Co,Ni,Cu,Ag,Au,Zn,Cd,Hg,Pd,Pt'
 const GROUP_SMARTS: Readonly<Record<ExplosophoreGroup, readonly string[]>> = {
-  'nitro': ['[#6,#7][N+](=O)[O-]'],
-  'nitrate-ester': ['[#6]O[N+](=O)[O-]'],
-  'nitrate': ['[O-][N+](=O)[O-]', '[OH][N+](=O)[O-]'],
-  'nitroso': ['[#6,#7]N=O'],
-  'n-oxide': ['[#6][N+]([#6])([#6])[O-]', '[n+][O-]', '[#6]=[N+][O-]'],
+  'acetylene': ['C#C'],
+  'acetylide': ['[C-]#C', '[C-]#[C-]', `[${METAL_LIST}]C#C`],
+  '1,2-diene': ['C=C=C'],
+  'c-metal': [`[#6][${METAL_LIST}]`],
+  'n-metal': [`[#7][${METAL_LIST}]`],
   'azide': ['N=[N+]=[N-]', '[N-]=[N+]=[N-]', '[N-][N+]#N'],
   'azo': ['[#6]N=N[#6]'],
   'diazo': ['[#6]=[N+]=[N-]', '[#6][N+]#N'],
   'hydrazine': ['N-N'],
+  'sulfonyl-hydrazide': ['S(=O)(=O)NN'],
   'peroxide': ['O-O'],
   'ozonide': ['C1OOCO1'],
-  'n-halogen': ['[#7][F,Cl,Br,I]'],
-  'chlorate': ['[O-][Cl,Br,I](=O)=O', 'O[Cl,Br,I](=O)=O'],
-  'acetylide': ['[C-]#C', '[C-]#[C-]', '[Li,Na,K,Mg,Ca,Cu,Zn,Ag,Hg]C#C'],
+  'hydroxylamine': ['N-O'],
+  'nitrate-ester': ['[#6]O[N+](=O)[O-]', '[#6]ON(=O)=O'],
+  'nitrate': ['[O-][N+](=O)[O-]', '[OH][N+](=O)[O-]'],
+  'nitro': ['[#6,#7][N+](=O)[O-]', '[#6,#7]N(=O)=O'],
+  'nitroso': ['[#6,#7]N=O'],
+  'n-oxide': ['[#6][N+]([#6])([#6])[O-]', '[n+][O-]', '[#6]=[N+][O-]'],
+  '1,2-oxazole': ['c1cnoc1', 'C1=NOCC1'],
   'fulminate': ['[C-]#[N+][O-]', 'C#[N+][O-]'],
-  'acetylene': ['C#C'],
+  'n-halogen': ['[#7][F,Cl,Br,I]'],
+  'o-halogen': ['[O-][Cl,Br,I](=O)=O', 'O[Cl,Br,I](=O)=O', '[#6]I=O', '[#8][F,Cl,Br,I]'],
 }
 
 let fragments: { group: ExplosophoreGroup; fragment: Molecule }[] | undefined

@@ -20,11 +20,14 @@ export function nichromeFuse(lengthCm = 10): ResolvedComponent {
   return { role: 'fuse', wire: 'nichrome', lengthCm }
 }
 
+/** What the library vouches for a shipped reference material (its classification; no decomposition record). */
+export const REFERENCE_IDENTITY = { name: 'benzoic acid', classification: 'reference standard, shipped reference material' }
+
 // Benzoic acid certified value, weighed in air (NIST SRM 39j certificate).
 export const BENZOIC_ACID_J_PER_G = 26454
 
 export function benzoicAcid(massG: number): ResolvedComponent {
-  return sample(massG, { heatingValueJPerG: BENZOIC_ACID_J_PER_G, name: 'benzoic acid' })
+  return sample(massG, { heatingValueJPerG: BENZOIC_ACID_J_PER_G, name: 'benzoic acid', library: REFERENCE_IDENTITY })
 }
 
 export function makeCharge(components: ResolvedComponent[], overrides: Partial<ChargeInput> = {}): ChargeInput {

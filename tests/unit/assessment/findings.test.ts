@@ -14,7 +14,7 @@ import {
 import { compositionFromAtoms } from '#shared/domain/composition'
 import { fillGaugeForOxygenMol } from '#shared/domain/oxygen'
 import { DEFAULT_POLICY } from '#shared/domain/policy'
-import { aid, BENZOIC_ACID_J_PER_G, benzoicAcid, makeCharge, makeVessel, nichromeFuse, sample } from './factories'
+import { aid, BENZOIC_ACID_J_PER_G, benzoicAcid, makeCharge, makeVessel, nichromeFuse, REFERENCE_IDENTITY, sample } from './factories'
 
 const P = DEFAULT_POLICY
 const codes = (a: Assessment) => a.findings.map(f => f.code)
@@ -131,14 +131,17 @@ describe('energetic screening in the vessel', () => {
     expect(a.components[0]?.oxygenBalancePct).toBeCloseTo(-74.0, 1) // Meyer, Köhler & Homburg, Explosives
   })
 
-  it('cannot clear a formula with N and O; a structure or a low decomposition energy decides', async () => {
+  it('needs the structure of a formula with N and O; a typed decomposition energy does not clear; the structure decides', async () => {
     const nm = (extra = {}) => sample(0.5, { formula: 'CH3NO2', declaredHazard: 'none', ...extra })
-    expect(codes(await assess(makeCharge([nm()]), P))).toContain('energetic-unclearable-formula')
-    expect(codes(await assess(makeCharge([nm({ decompositionEnergyJPerG: 499 })]), P))).not.toContain('energetic-unclearable-formula')
-    const withStructure = await assess(makeCharge([nm({ smiles: 'C[N+](=O)[O-]' })]), P)
-    expect(codes(withStructure)).not.toContain('energetic-unclearable-formula')
+    const formulaOnly = await assess(makeCharge([nm()]), P)
+    expect(codes(formulaOnly)).toContain('structure-needed')
+    expect(formulaOnly.findings.find(f => f.code === 'structure-needed')?.message).toContain('Give the structure (SMILES)')
+    expect(codes(await assess(makeCharge([nm({ decompositionEnergyJPerG: 1 })]), P))).toContain('structure-needed')
+    const withStructure = await assess(makeCharge([nm({ smiles: 'C[N+](=O)[O-]', decompositionEnergyJPerG: 1 })]), P)
+    expect(codes(withStructure)).not.toContain('structure-needed')
     expect(codes(withStructure)).toContain('energetic-in-standard-vessel')
-    expect(codes(await assess(makeCharge([sample(0.5, { formula: 'C7H6O2' })]), P))).not.toContain('energetic-unclearable-formula')
+    expect(codes(await assess(makeCharge([sample(0.5, { formula: 'C7H6O2' })]), P))).toContain('structure-needed')
+    expect(codes(await assess(makeCharge([sample(0.5, { smiles: 'OC(=O)c1ccccc1' })]), P))).not.toContain('structure-needed')
   })
 
   it('notes a structure whose explosophore the oxygen balance clears', async () => {
@@ -163,7 +166,7 @@ describe('heating value and composition', () => {
   it('needs approval when nothing is known and the policy value is used', () => {
     const unknown = run([sample(0.5)])
     expect(codes(unknown)).toContain('heating-value-unknown')
-    expect(unknown.components[0]).toMatchObject({ heatingValueJPerG: 46000, heatingValueSource: 'policy-fallback' }) // DESIGN §3 policy
+    expect(unknown.components[0]).toMatchObject({ heatingValueJPerG: 50000, heatingValueSource: 'policy-fallback' }) // lab policy default
     expect(codes(run([sample(0.5, { heatingValueJPerG: 20000 })]))).not.toContain('heating-value-unknown')
   })
 
@@ -226,7 +229,7 @@ describe('notes on energy and mass', () => {
   })
 
   it('assesses a sample without mass at the suggested mass, and says so', () => {
-    const a = run([sample(undefined, { heatingValueJPerG: BENZOIC_ACID_J_PER_G }), nichromeFuse(10)])
+    const a = run([sample(undefined, { heatingValueJPerG: BENZOIC_ACID_J_PER_G, library: REFERENCE_IDENTITY }), nichromeFuse(10)])
     expect(codes(a)).toEqual(['suggested-mass'])
     // (26,000 − 10 cm × 9.6 J/cm) / 26,454 J/g = 0.9792 g → 0.97 g (policy target; NIST SRM 39j; fuse value from memory)
     expect(a.suggestions.targetSampleMassG).toBe(0.97)

@@ -79,6 +79,21 @@ describe('heating-value source order', () => {
     expect(chooseHeatingValue({ heatingValueJPerG: 26454, heatingValueFrom: 'material' }, DEFAULT_POLICY).source).toBe('material')
     expect(chooseHeatingValue({ composition: comp, derivedComposition: { C: 10 } }, DEFAULT_POLICY)).toMatchObject({ source: 'correlation', compositionFrom: 'given' })
     expect(chooseHeatingValue({ derivedComposition: comp }, DEFAULT_POLICY)).toMatchObject({ source: 'correlation', compositionFrom: 'derived' })
-    expect(chooseHeatingValue({}, DEFAULT_POLICY)).toEqual({ jPerG: 46000, source: 'policy-fallback' }) // DESIGN §3: 46 kJ/g policy
+    expect(chooseHeatingValue({}, DEFAULT_POLICY)).toEqual({ jPerG: 50000, source: 'policy-fallback' }) // lab policy default
+  })
+
+  it('keeps the policy value above every pure liquid hydrocarbon', () => {
+    // n-pentane about 48.6 kJ/g (from memory), isooctane 47.788 kJ/g (ASTM D240): the fallback must not be below them.
+    expect(DEFAULT_POLICY.fallbackHeatingValueJPerG).toBeGreaterThan(48600)
+    expect(DEFAULT_POLICY.fallbackHeatingValueJPerG).toBeGreaterThan(47788)
+  })
+
+  it('never clips the correlation to zero: a result at or below zero falls back to the policy value', () => {
+    // Oxalic acid C2H2O4 dry: C 26.68, H 2.24, O 71.08 % → 0.3491·26.68 + 1.1783·2.24 − 0.1034·71.08 = 4.59 MJ/kg;
+    // pure oxygen-rich fictitious analysis C 5, O 90 → 1.75 − 9.31 < 0 (Channiwala & Parikh 2002 coefficients).
+    const negative = chooseHeatingValue({ composition: { C: 5, O: 90, basis: 'dry' } }, DEFAULT_POLICY)
+    expect(negative.source).toBe('policy-fallback')
+    expect(negative.jPerG).toBe(50000)
+    expect(negative.fallbackReason).toContain('not a heating value')
   })
 })

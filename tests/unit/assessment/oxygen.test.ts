@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest'
-import { compositionFromFormula } from '#shared/domain/composition'
+import { asFiredFractions, compositionFromFormula } from '#shared/domain/composition'
 import {
+  combustionPerGram,
   fillGaugeForOxygenMol,
   GAS_CONSTANT,
   HUGGETT_J_PER_G_O2,
@@ -20,9 +21,9 @@ describe('oxygen demand', () => {
     expect(oxygenDemandMolPerG(composition)).toBeCloseTo(0.06141, 5)
   })
 
-  it('uses the published per-gram form C/12.011 + H/4.032 + S/32.06 − O/31.998', () => {
-    // 0.70/12.011 + 0.05/4.032 + 0.01/32.06 − 0.10/31.998 (stoichiometry; REFERENCES "Oxygen")
-    const expected = 0.7 / 12.011 + 0.05 / 4.032 + 0.01 / 32.06 - 0.1 / 31.998
+  it('uses the per-gram form C/12.011 + H/4.032 + 1.5·S/32.06 − O/31.998, sulfur to H2SO4', () => {
+    // Stoichiometry: S + 1.5 O2 + H2O → H2SO4 takes more oxygen than S + O2 → SO2, so the larger demand is used.
+    const expected = 0.7 / 12.011 + 0.05 / 4.032 + 1.5 * 0.01 / 32.06 - 0.1 / 31.998
     expect(oxygenDemandMolPerG({ C: 70, H: 5, S: 1, O: 10, N: 1.5, ash: 8 })).toBeCloseTo(expected, 12)
   })
 
@@ -32,10 +33,26 @@ describe('oxygen demand', () => {
     expect(oxygenDemandMolPerG(pvc.composition)).toBeCloseTo(2.5 / 62.497, 5)
   })
 
-  it('estimates demand from heat at 13.1 kJ per g of O2', () => {
-    expect(HUGGETT_J_PER_G_O2).toBe(13100) // Huggett 1980, Fire and Materials 4:61
-    const estimate = oxygenDemandFromHeatMol(26454) // 1 g benzoic acid, NIST SRM 39j (weighed in air)
-    expect(estimate).toBeCloseTo(26454 / 13100 / 31.998, 10)
+  it('gives sulfur its sulfuric-acid demand: 1.5 mol O2 per mol S', () => {
+    // Pure sulfur S8 → H2SO4: 1.5 / 32.06 = 0.04679 mol/g (stoichiometry, IUPAC atomic weights).
+    expect(oxygenDemandMolPerG({ S: 100 })).toBeCloseTo(1.5 / 32.06, 6)
+  })
+
+  it('does not invent hydrogen for chlorine beyond it (CCl4 forms Cl2, not HCl)', async () => {
+    // CCl4 + O2 → CO2 + 2 Cl2: 1 mol O2 per 153.81 g (stoichiometry, IUPAC atomic weights); the old rule gave the same
+    // demand but counted 4 HCl from hydrogen that is not there.
+    const ccl4 = await compositionFromFormula('CCl4')
+    expect(oxygenDemandMolPerG(ccl4.composition)).toBeCloseTo(1 / 153.81, 5)
+    const per = combustionPerGram(asFiredFractions(ccl4.composition))
+    expect(per.hclMol).toBeCloseTo(2 / 153.81, 5) // 2 Cl2 counted with the diatomic gases
+  })
+
+  it('estimates demand from heat at 13.1 kJ per g of O2 on the net-heat basis it was derived for', () => {
+    expect(HUGGETT_J_PER_G_O2).toBe(13100) // Huggett 1980, Fire and Materials 4:61 (net heat of combustion)
+    const estimate = oxygenDemandFromHeatMol(26454) // 1 g benzoic acid, NIST SRM 39j (weighed in air), a gross value
+    // Gross → net with the water of (CH2)n: 2/3 mol H2O per mol O2 at 44.004 kJ/mol (CODATA key values).
+    expect(estimate).toBeCloseTo(26454 / (13100 * 31.998 + (2 / 3) * 44004), 10)
+    expect(oxygenDemandFromHeatMol(1000, true)).toBeCloseTo(1000 / 13100 / 31.998, 10)
     // Huggett's rule holds to about ±5 % for most organic fuels (Huggett 1980, from memory); stoichiometry gives 0.06141.
     expect(Math.abs(estimate / 0.06141 - 1)).toBeLessThan(0.05)
   })
