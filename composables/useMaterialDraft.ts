@@ -2,6 +2,8 @@
 export interface MaterialDraft {
   name: string, category: string, heatingValueJPerG: number | null, heatingValueUncertaintyJPerG: number | null, heatingValueSource: string
   formula: string, smiles: string, declaredHazard: 'none' | 'energetic' | 'oxidiser', decompositionEnergyJPerG: number | null, notes: string
+  decompositionOnsetC: number | null, decompositionMethod: string, decompositionEvidence: string
+  boilingPointC: number | null, vapourPressureKPa: number | null, chlorinePct: number | null
   composition: Record<'C' | 'H' | 'N' | 'S' | 'O' | 'Cl' | 'ash' | 'moisture', number | null>
 }
 
@@ -13,6 +15,7 @@ export function blankMaterial(): MaterialDraft {
   return {
     name: '', category: 'coal', heatingValueJPerG: null, heatingValueUncertaintyJPerG: null, heatingValueSource: '', formula: '', smiles: '',
     declaredHazard: 'none', decompositionEnergyJPerG: null, notes: '',
+    decompositionOnsetC: null, decompositionMethod: '', decompositionEvidence: '', boilingPointC: null, vapourPressureKPa: null, chlorinePct: null,
     composition: { C: null, H: null, N: null, S: null, O: null, Cl: null, ash: null, moisture: null },
   }
 }
@@ -31,6 +34,12 @@ export function materialBody(d: MaterialDraft) {
     smiles: textOrNull(d.smiles),
     declaredHazard: d.declaredHazard,
     decompositionEnergyJPerG: numOrNull(d.decompositionEnergyJPerG),
+    decompositionOnsetC: numOrNull(d.decompositionOnsetC),
+    decompositionMethod: textOrNull(d.decompositionMethod),
+    decompositionEvidence: textOrNull(d.decompositionEvidence),
+    boilingPointC: numOrNull(d.boilingPointC),
+    vapourPressureKPa: numOrNull(d.vapourPressureKPa),
+    chlorinePct: numOrNull(d.chlorinePct),
     notes: d.notes,
     composition: hasComp ? comp : null,
     compositionBasis: hasComp ? 'dry' : null,
@@ -51,6 +60,12 @@ export function draftFromMaterial(m: Record<string, unknown>): MaterialDraft {
     smiles: String(m.smiles ?? ''),
     declaredHazard: (m.declaredHazard as MaterialDraft['declaredHazard']) ?? 'none',
     decompositionEnergyJPerG: (m.decompositionEnergyJPerG as number | null) ?? null,
+    decompositionOnsetC: (m.decompositionOnsetC as number | null) ?? null,
+    decompositionMethod: String(m.decompositionMethod ?? ''),
+    decompositionEvidence: String(m.decompositionEvidence ?? ''),
+    boilingPointC: (m.boilingPointC as number | null) ?? null,
+    vapourPressureKPa: (m.vapourPressureKPa as number | null) ?? null,
+    chlorinePct: (m.chlorinePct as number | null) ?? null,
     notes: String(m.notes ?? ''),
     composition: Object.fromEntries(COMPOSITION_KEYS.map(k => [k, comp[k] ?? null])) as MaterialDraft['composition'],
   }

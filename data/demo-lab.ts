@@ -34,7 +34,7 @@ export function demoVessels(now = Date.now()) {
     },
     {
       name: 'KR-4 Damson', serialNumber: 'KRF-17-0458', class: 'standard', ratedEnergyJ: 30000, maxChargeMassG: 1.2, maxFillPressureMPa: 3.5, volumeMl: 250,
-      location: 'Bench B', notes: 'Small vessel for oils and plastics.', condition: 'normal',
+      location: 'Bench B', notes: 'Small vessel for oils and plastics; halogen-resistant alloy.', condition: 'normal', halogenResistant: true,
       firingsSinceService: 141, firingsSinceRequalification: 3120, firingsTotal: 4980, lastServicedAt: new Date(now - 190 * DAY), lastRequalifiedAt: new Date(now - 900 * DAY),
     },
     {

@@ -13,6 +13,9 @@ export interface SeedMaterial {
   smiles?: string
   declaredHazard?: 'none' | 'energetic' | 'oxidiser'
   decompositionEnergyJPerG?: number
+  /** Boiling point, °C (CRC Handbook of Chemistry and Physics, from memory). */
+  boilingPointC?: number
+  chlorinePct?: number
   notes?: string
   reference?: boolean
 }
@@ -40,11 +43,11 @@ const SHIPPED: SeedMaterial[] = [
   { name: 'Gelatin capsule (combustion aid)', category: 'combustion aid', ...typical(17500, 19500, 'hard gelatin capsules'), notes: 'For volatile liquids; determine the lot\'s own value.' },
   { name: 'Cotton thread (fuse)', category: 'combustion aid', heatingValueJPerG: 17500, heatingValueSource: 'About 17.5 kJ/g for cellulose thread (from memory).' },
   {
-    name: '2,2,4-Trimethylpentane (isooctane)', category: 'reference standard', formula: 'C8H18', smiles: 'CC(C)CC(C)(C)C',
+    name: '2,2,4-Trimethylpentane (isooctane)', category: 'reference standard', formula: 'C8H18', smiles: 'CC(C)CC(C)(C)C', boilingPointC: 99.2,
     heatingValueJPerG: 47788, heatingValueSource: 'ASTM D240 (check standard for volatile fuels): 47.788 MJ/kg.',
   },
   {
-    name: 'Sucrose', category: 'reference standard', formula: 'C12H22O11',
+    name: 'Sucrose', category: 'reference standard', formula: 'C12H22O11', smiles: 'OC[C@H]1O[C@@](CO)(O[C@H]2O[C@H](CO)[C@@H](O)[C@H](O)[C@H]2O)[C@@H](O)[C@@H]1O',
     heatingValueJPerG: 16490, heatingValueSource: 'NIST Chemistry WebBook, enthalpy of combustion of the solid: 16.49 MJ/kg.',
   },
   { name: 'Bituminous coal (typical)', category: 'coal', ...typical(24000, 35000, 'bituminous coals, air-dried') },
@@ -58,9 +61,18 @@ const SHIPPED: SeedMaterial[] = [
   { name: 'Refuse-derived fuel (typical)', category: 'waste fuel', ...typical(13000, 25000, 'refuse-derived fuels, as received') },
   { name: 'Polyethylene (typical)', category: 'polymer', formula: 'C2H4', ...typical(45500, 46600, 'polyethylenes') },
   { name: 'Polystyrene (typical)', category: 'polymer', formula: 'C8H8', ...typical(40500, 42000, 'polystyrenes') },
-  { name: 'Poly(vinyl chloride) (typical)', category: 'polymer', formula: 'C2H3Cl', ...typical(17500, 20500, 'unfilled PVC'), notes: 'Forms hydrochloric acid on combustion: rinse and check the vessel for corrosion.' },
+  { name: 'Poly(vinyl chloride) (typical)', category: 'polymer', formula: 'C2H3Cl', chlorinePct: 56.7, ...typical(17500, 20500, 'unfilled PVC'), notes: 'Forms hydrochloric acid on combustion: rinse and check the vessel for corrosion.' },
   {
-    name: 'Ammonium nitrate', category: 'chemical', formula: 'H4N2O3', declaredHazard: 'oxidiser',
+    name: 'n-Pentane', category: 'chemical', formula: 'C5H12', smiles: 'CCCCC', boilingPointC: 36.1,
+    heatingValueJPerG: 48640, heatingValueSource: 'NIST Chemistry WebBook, enthalpy of combustion of the liquid: about 48.6 MJ/kg (from memory).',
+    notes: 'Volatile: seal it in a gelatin capsule before the vessel is filled.',
+  },
+  {
+    name: 'Naphthalene', category: 'chemical', formula: 'C10H8', smiles: 'c1ccc2ccccc2c1',
+    heatingValueJPerG: 40230, heatingValueSource: 'NIST Chemistry WebBook, enthalpy of combustion of the solid: about 40.2 MJ/kg (from memory).',
+  },
+  {
+    name: 'Ammonium nitrate', category: 'chemical', formula: 'H4N2O3', smiles: '[NH4+].[O-][N+](=O)[O-]', declaredHazard: 'oxidiser',
     notes: 'Strong oxidiser, oxygen balance +20 % (handbook value). Never in a standard vessel as a sample or as more than a trace in a mixture.',
   },
   {

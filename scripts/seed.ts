@@ -1,6 +1,7 @@
 // Loads the demo lab into NUXT_DATABASE_URL. Idempotent: a second run adds nothing.
 import { Hash } from '@adonisjs/hash'
 import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
+import { eq } from 'drizzle-orm'
 import { drizzle } from 'drizzle-orm/node-postgres'
 import pg from 'pg'
 import * as schema from '../server/database/schema'
@@ -48,7 +49,10 @@ await db.transaction(async (tx) => {
     }
   }
   const knownMaterials = new Set((await tx.select({ name: schema.materials.name }).from(schema.materials)).map(r => r.name))
-  for (const m of [...REFERENCE_MATERIALS, ...DEMO_MATERIALS].filter(m => !knownMaterials.has(m.name))) {
+  // The demo supervisor recorded the classification of the lab's own materials (shipped ones are reference records).
+  const [supervisor] = await tx.select({ id: schema.users.id }).from(schema.users).where(eq(schema.users.email, 'supervisor@emberline.test'))
+  const recorded = supervisor ? { identityRecordedBy: supervisor.id, identityRecordedAt: new Date() } : {}
+  for (const m of [...REFERENCE_MATERIALS, ...DEMO_MATERIALS.map(d => ({ ...d, ...recorded }))].filter(m => !knownMaterials.has(m.name))) {
     const [row] = await tx.insert(schema.materials).values(m).returning()
     await tx.insert(schema.auditLog).values({ action: 'material.create', entity: 'material', entityId: row!.id, newValues: row!, reason: 'demo lab loaded' })
   }

@@ -2,17 +2,19 @@
 import Papa from 'papaparse'
 import type { RunComponent, RunInput } from './schemas/plans'
 import { compositionProblems } from './domain/composition'
+import { chemicalTextProblem, normaliseChemicalText } from './domain/hygiene'
+import { MATERIAL_CATEGORIES } from './schemas/materials'
 
 export const IMPORT_COLUMNS = [
-  'sample_code', 'kind', 'material', 'mass_g', 'heating_value_j_per_g', 'formula', 'C', 'H', 'N', 'S', 'O', 'Cl', 'ash', 'moisture',
+  'sample_code', 'kind', 'material', 'mass_g', 'heating_value_j_per_g', 'formula', 'smiles', 'category', 'boiling_point_c', 'C', 'H', 'N', 'S', 'O', 'Cl', 'ash', 'moisture',
   'declared_hazard', 'aid_material', 'aid_mass_g', 'fuse_wire', 'fuse_length_cm', 'vessel', 'fill_pressure_mpa', 'note',
 ] as const
 
 export const IMPORT_TEMPLATE = `${IMPORT_COLUMNS.join(',')}
-KRC-2611-A,sample,Client coal KRC-2611 (bituminous blend),0.95,,,,,,,,,,,,,,nichrome,10,,,first of a duplicate
-PP44-01,sample,,1.00,,,50.2,6.1,0.2,,43.1,,0.4,7.5,none,,,nichrome,10,,,composition entered inline (mass-%)
-OAT-7,sample,Rolled oat flakes,0.80,,,,,,,,,,,,Benzoic acid pellet (combustion aid),0.30,cotton,,,,weak sample: aid added
-`
+KRC-2611-A,sample,Client coal KRC-2611 (bituminous blend),0.95,,,,,,,,,,,,,,,,,nichrome,10,,,first of a duplicate
+PP44-01,sample,,1.00,,,,biomass,,50.2,6.1,0.2,,43.1,,0.4,7.5,none,,,nichrome,10,,,composition entered inline (mass-%)
+OAT-7,sample,Rolled oat flakes,0.80,,,,,,,,,,,,,,,Benzoic acid pellet (combustion aid),0.30,cotton,,,,weak sample: aid added
+,,,`
 
 export interface ImportRow {
   line: number
@@ -71,7 +73,20 @@ export function parsePlanImport(text: string, materials: MaterialRef[], vessels:
     if (mass !== undefined) sample.massG = mass
     const hv = num(r.heating_value_j_per_g, 'heating_value_j_per_g', errors, { min: 1, max: 200_000 })
     if (hv !== undefined) sample.heatingValueJPerG = hv
-    if ((r.formula ?? '').trim()) sample.formula = r.formula!.trim()
+    for (const [column, field, what] of [['formula', 'formula', 'formula'], ['smiles', 'smiles', 'structure']] as const) {
+      const text = (r[column] ?? '').trim()
+      if (!text) continue
+      const problem = chemicalTextProblem(text, what)
+      if (problem) errors.push(`${column}: ${problem.message}`)
+      else sample[field] = normaliseChemicalText(text).trim()
+    }
+    const category = (r.category ?? '').trim()
+    if (category) {
+      if ((MATERIAL_CATEGORIES as readonly string[]).includes(category)) sample.category = category
+      else errors.push(`category "${category}" must be one of: ${MATERIAL_CATEGORIES.join(', ')}`)
+    }
+    const boiling = num(r.boiling_point_c, 'boiling_point_c', errors, { min: -273, max: 2000 })
+    if (boiling !== undefined) sample.boilingPointC = boiling
     const composition: Record<string, number> = {}
     for (const k of ['C', 'H', 'N', 'S', 'O', 'Cl', 'ash', 'moisture'] as const) {
       const v = num(r[k], k, errors, { min: 0, max: 100 })
@@ -86,8 +101,8 @@ export function parsePlanImport(text: string, materials: MaterialRef[], vessels:
       if (HAZARDS.includes(hazard)) sample.declaredHazard = hazard as RunComponent['declaredHazard']
       else errors.push(`declared_hazard "${hazard}" must be none, energetic or oxidiser`)
     }
-    if (!materialName && hv === undefined && !sample.formula && !sample.composition) {
-      errors.push('say what the sample is: a material, a heating value, a formula or a composition')
+    if (!materialName && hv === undefined && !sample.formula && !sample.smiles && !sample.composition) {
+      errors.push('say what the sample is: a material, a structure (SMILES), a formula or a composition with its category')
     }
     const components: RunComponent[] = [sample]
     const aidName = (r.aid_material ?? '').trim()

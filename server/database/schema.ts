@@ -73,6 +73,8 @@ export const vessels = pgTable('vessels', {
   maxChargeMassG: doublePrecision('max_charge_mass_g').notNull(),
   maxFillPressureMPa: doublePrecision('max_fill_pressure_mpa').notNull(),
   volumeMl: doublePrecision('volume_ml').notNull(),
+  // Marked resistant to halogen acids: chlorine-rich samples may be fired in it without an exception.
+  halogenResistant: boolean('halogen_resistant').notNull().default(false),
   proofChargeMassG: doublePrecision('proof_charge_mass_g').notNull(),
   proofChargeHeatingValueJPerG: doublePrecision('proof_charge_heating_value_j_per_g').notNull(),
   proofChargeFillPressureMPa: doublePrecision('proof_charge_fill_pressure_mpa').notNull(),
@@ -114,6 +116,18 @@ export const materials = pgTable('materials', {
   smiles: text('smiles'),
   declaredHazard: text('declared_hazard').notNull().default('none'),
   decompositionEnergyJPerG: doublePrecision('decomposition_energy_j_per_g'),
+  // Evidence behind the decomposition energy (the only route by which it clears a screen): onset, method, document.
+  decompositionOnsetC: doublePrecision('decomposition_onset_c'),
+  decompositionMethod: text('decomposition_method'),
+  decompositionEvidence: text('decomposition_evidence'), // attachment id or document reference
+  decompositionRecordedBy: uuid('decomposition_recorded_by').references(() => users.id),
+  decompositionRecordedAt: timestamp('decomposition_recorded_at', { withTimezone: true }),
+  // Who recorded the structure or classification (identity) of the material, and when.
+  identityRecordedBy: uuid('identity_recorded_by').references(() => users.id),
+  identityRecordedAt: timestamp('identity_recorded_at', { withTimezone: true }),
+  boilingPointC: doublePrecision('boiling_point_c'),
+  vapourPressureKPa: doublePrecision('vapour_pressure_kpa'),
+  chlorinePct: doublePrecision('chlorine_pct'),
   notes: text('notes').notNull().default(''),
   reference: boolean('reference').notNull().default(false),
   active: boolean('active').notNull().default(true),

@@ -61,11 +61,39 @@ export function materialView(m: MaterialRow) {
     smiles: m.smiles,
     declaredHazard: m.declaredHazard,
     decompositionEnergyJPerG: m.decompositionEnergyJPerG,
+    decompositionOnsetC: m.decompositionOnsetC,
+    decompositionMethod: m.decompositionMethod,
+    decompositionEvidence: m.decompositionEvidence,
+    decompositionRecordedBy: m.decompositionRecordedBy,
+    decompositionRecordedAt: m.decompositionRecordedAt,
+    identityRecordedBy: m.identityRecordedBy,
+    identityRecordedAt: m.identityRecordedAt,
+    boilingPointC: m.boilingPointC,
+    vapourPressureKPa: m.vapourPressureKPa,
+    chlorinePct: m.chlorinePct,
     notes: m.notes,
     reference: m.reference,
     active: m.active,
     updatedAt: m.updatedAt,
   }
+}
+
+const IDENTITY_FIELDS = ['category', 'formula', 'smiles', 'composition', 'declaredHazard'] as const
+const DECOMPOSITION_FIELDS = ['decompositionEnergyJPerG', 'decompositionOnsetC', 'decompositionMethod', 'decompositionEvidence'] as const
+
+/**
+ * The supervisor who writes a material's identity (category, formula, structure, composition, declared hazard) or
+ * its decomposition evidence is recorded with the time: only such records let the screen lean on the library.
+ */
+export function materialRecordedBy(input: Record<string, unknown>, userId: string) {
+  const now = new Date()
+  const out: { identityRecordedBy?: string, identityRecordedAt?: Date, decompositionRecordedBy?: string | null, decompositionRecordedAt?: Date | null } = {}
+  if (IDENTITY_FIELDS.some(f => input[f] !== undefined)) Object.assign(out, { identityRecordedBy: userId, identityRecordedAt: now })
+  if (DECOMPOSITION_FIELDS.some(f => input[f] !== undefined)) {
+    const cleared = input.decompositionEnergyJPerG === null
+    Object.assign(out, { decompositionRecordedBy: cleared ? null : userId, decompositionRecordedAt: cleared ? null : now })
+  }
+  return out
 }
 
 /** Formula and structure must be readable before a material is saved (422 naming the field otherwise). */

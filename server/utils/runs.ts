@@ -48,6 +48,11 @@ export async function assessRun(db: Db | Tx, input: { vessel: VesselView, fillPr
     runRole: input.kind,
   })
   if (!parsed.success) invalidInput(parsed.error.issues)
+  // The schema drops `library` from any request; the server's own material record is attached again here.
+  parsed.data.components.forEach((c, i) => {
+    const library = components[i]?.library
+    if (library) (c as ChargeComponentInput).library = library
+  })
   try {
     const assessment = await assess(parsed.data, policy)
     return { assessment, chargeHash: chargeHash(input.vessel.id, input.fillPressureMPa, input.components, assessment) }

@@ -31,6 +31,7 @@ export function vesselView(v: VesselRow, policy: LabPolicy, now = new Date()) {
     maxChargeMassG: v.maxChargeMassG,
     maxFillPressureMPa: v.maxFillPressureMPa,
     volumeMl: v.volumeMl,
+    halogenResistant: v.halogenResistant,
     proofCharge: { massG: v.proofChargeMassG, heatingValueJPerG: v.proofChargeHeatingValueJPerG, fillPressureMPa: v.proofChargeFillPressureMPa },
     serviceIntervalFirings: v.serviceIntervalFirings,
     serviceIntervalDays: v.serviceIntervalDays,
@@ -78,6 +79,7 @@ export function assessmentVessel(view: VesselView) {
     maxFillPressureMPa: view.maxFillPressureMPa,
     volumeMl: view.volumeMl,
     proofCharge: view.proofCharge,
+    halogenResistant: view.halogenResistant,
     state: view.state,
   }
 }

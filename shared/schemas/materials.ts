@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { compositionProblems } from '../domain/composition'
+import { chemicalText } from '../domain/assessment/schema'
 import type { CompositionBasis } from '../domain/composition'
 
 export const MATERIAL_CATEGORIES = [
@@ -29,19 +30,35 @@ const fields = {
     .refine(r => r.minJPerG <= r.maxJPerG, { message: 'minimum above maximum' }).nullable().optional(),
   composition: materialCompositionSchema.nullable().optional(),
   compositionBasis: z.enum(['dry', 'as-received', 'air-dried']).nullable().optional(),
-  formula: z.string().trim().min(1).max(200).nullable().optional(),
-  smiles: z.string().trim().min(1).max(2000).nullable().optional(),
+  formula: chemicalText('formula', 200).nullable().optional(),
+  smiles: chemicalText('structure', 2000).nullable().optional(),
   declaredHazard: z.enum(['none', 'energetic', 'oxidiser']).default('none'),
   decompositionEnergyJPerG: z.number().min(0).max(100_000).nullable().optional(),
+  decompositionOnsetC: z.number().min(-50).max(1500).nullable().optional(),
+  decompositionMethod: z.string().trim().min(3).max(300).nullable().optional(),
+  decompositionEvidence: z.string().trim().min(3).max(300).nullable().optional(),
+  boilingPointC: z.number().min(-273).max(2000).nullable().optional(),
+  vapourPressureKPa: z.number().min(0).max(100_000).nullable().optional(),
+  chlorinePct: z.number().min(0).max(100).nullable().optional(),
   notes: z.string().trim().max(4000).default(''),
 }
 
-export const materialCreateSchema = z.object(fields).strict().superRefine(checkComposition)
+/** A decomposition energy is kept only with its onset temperature, method and evidence document (it may clear a screen). */
+function checkDecomposition(v: { decompositionEnergyJPerG?: number | null, decompositionOnsetC?: number | null, decompositionMethod?: string | null, decompositionEvidence?: string | null }, ctx: z.RefinementCtx) {
+  if (v.decompositionEnergyJPerG === undefined || v.decompositionEnergyJPerG === null) return
+  const need = { decompositionOnsetC: 'the onset temperature (°C) of the measurement', decompositionMethod: 'the method (e.g. DSC, heating rate, crucible)', decompositionEvidence: 'the evidence document (attachment id or report reference)' } as const
+  for (const [field, what] of Object.entries(need)) {
+    const value = v[field as keyof typeof need]
+    if (value === undefined || value === null) ctx.addIssue({ code: 'custom', path: [field], message: `a decomposition energy needs ${what}` })
+  }
+}
+
+export const materialCreateSchema = z.object(fields).strict().superRefine(checkComposition).superRefine(checkDecomposition)
 
 export const materialPatchSchema = z.object({
   ...Object.fromEntries(Object.entries(fields).map(([k, v]) => [k, (v as z.ZodType).optional()])) as { [K in keyof typeof fields]: z.ZodOptional<typeof fields[K]> },
   active: z.boolean().optional(),
   reason: z.string().trim().min(3, 'say why the material record changes').max(1000),
-}).strict().superRefine(checkComposition)
+}).strict().superRefine(checkComposition).superRefine(checkDecomposition)
 
 export type MaterialCreate = z.infer<typeof materialCreateSchema>

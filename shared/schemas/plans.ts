@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { chemicalText } from '../domain/assessment/schema'
 
 export const RUN_KINDS = ['sample', 'standardisation', 'check'] as const
 export const RUN_STATUSES = ['draft', 'ready', 'awaiting-approval', 'blocked', 'rejected', 'fired', 'withdrawn'] as const
@@ -14,14 +15,19 @@ export const runComponentSchema = z.object({
   lengthCm: z.number().min(0).max(1000).optional(),
   wire: z.enum(['nichrome', 'iron', 'platinum', 'cotton']).optional(),
   heatingValueJPerG: z.number().positive().max(200_000).optional(),
-  formula: z.string().trim().min(1).max(200).optional(),
-  smiles: z.string().trim().min(1).max(2000).optional(),
+  formula: chemicalText('formula', 200).optional(),
+  smiles: chemicalText('structure', 2000).optional(),
   composition: z.object({
     C: pct.optional(), H: pct.optional(), N: pct.optional(), S: pct.optional(), O: pct.optional(), Cl: pct.optional(), ash: pct.optional(), moisture: pct.optional(),
     basis: z.enum(['dry', 'as-received', 'air-dried']).optional(),
   }).strict().optional(),
   declaredHazard: z.enum(['none', 'energetic', 'oxidiser']).optional(),
   decompositionEnergyJPerG: z.number().min(0).max(100_000).optional(),
+  category: z.string().trim().max(40).optional(),
+  boilingPointC: z.number().min(-273).max(2000).optional(),
+  vapourPressureKPa: z.number().min(0).max(100_000).optional(),
+  chlorinePct: z.number().min(0).max(100).optional(),
+  containment: z.enum(['capsule', 'tape']).optional(),
   name: z.string().trim().max(200).optional(),
 }).strict()
 export type RunComponent = z.infer<typeof runComponentSchema>

@@ -23,6 +23,8 @@ const ratings = {
   serviceIntervalFirings: count(100_000, 'service interval'),
   serviceIntervalDays: count(3650, 'service interval'),
   requalificationIntervalFirings: count(1_000_000, 'requalification interval'),
+  // Marked by the vessel's maker or the lab as resistant to halogen acids (chlorine-rich samples).
+  halogenResistant: z.boolean({ error: 'halogen-resistant must be true or false' }),
 }
 
 export const RATING_FIELDS = Object.keys(ratings) as (keyof typeof ratings)[]
@@ -37,6 +39,7 @@ export const vesselCreateSchema = z.object({
   serviceIntervalFirings: ratings.serviceIntervalFirings.optional(),
   serviceIntervalDays: ratings.serviceIntervalDays.optional(),
   requalificationIntervalFirings: ratings.requalificationIntervalFirings.optional(),
+  halogenResistant: ratings.halogenResistant.default(false),
   location: text(120).default(''),
   notes: text(2000).default(''),
   // A vessel brought in from elsewhere keeps its history: the admin records where it stands.
@@ -62,6 +65,7 @@ export const vesselPatchSchema = z.object({
   serviceIntervalFirings: ratings.serviceIntervalFirings.optional(),
   serviceIntervalDays: ratings.serviceIntervalDays.optional(),
   requalificationIntervalFirings: ratings.requalificationIntervalFirings.optional(),
+  halogenResistant: ratings.halogenResistant.optional(),
   location: text(120).optional(),
   notes: text(2000).optional(),
   reason: text(1000).optional(),

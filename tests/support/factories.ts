@@ -31,9 +31,12 @@ export async function newPlan(vesselId: string, cookie?: string) {
   return res.body
 }
 
-/** A sample run: `massG` of a sample with a declared heating value, fired on 10 cm of Ni-Cr wire. */
+/** Benzoic acid by structure: a sample whose identity the screen can clear (no group of UN Appendix 6, Table A6.1). */
+export const BENZOIC_ACID_SMILES = 'OC(=O)c1ccccc1'
+
+/** A sample run: `massG` of a sample with a declared heating value and a known structure, fired on 10 cm of Ni-Cr wire. */
 export function sampleRun(massG: number, heatingValueJPerG = 26454, extra: Record<string, unknown> = {}) {
-  return { sampleCode: unique('S'), components: [{ role: 'sample', massG, heatingValueJPerG }, { role: 'fuse', wire: 'nichrome', lengthCm: 10 }], ...extra }
+  return { sampleCode: unique('S'), components: [{ role: 'sample', massG, heatingValueJPerG, smiles: BENZOIC_ACID_SMILES }, { role: 'fuse', wire: 'nichrome', lengthCm: 10 }], ...extra }
 }
 
 export async function addRun(planId: string, body: Record<string, unknown>, cookie?: string) {

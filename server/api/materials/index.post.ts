@@ -6,7 +6,7 @@ export default defineEventHandler(async (event) => {
   const input = await parseBody(event, materialCreateSchema)
   await checkMaterialChemistry(input)
   const row = await useDb().transaction(async (tx) => {
-    const [created] = await tx.insert(schema.materials).values({ ...input, createdBy: user.id }).returning()
+    const [created] = await tx.insert(schema.materials).values({ ...input, ...materialRecordedBy(input, user.id), createdBy: user.id }).returning()
     await audit(tx, event, { action: 'material.create', entity: 'material', entityId: created!.id, newValues: created })
     return created!
   })

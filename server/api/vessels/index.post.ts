@@ -22,6 +22,7 @@ export default defineEventHandler(async (event) => {
       maxChargeMassG: input.maxChargeMassG,
       maxFillPressureMPa: input.maxFillPressureMPa,
       volumeMl: input.volumeMl,
+      halogenResistant: input.halogenResistant,
       proofChargeMassG: proof.massG,
       proofChargeHeatingValueJPerG: proof.heatingValueJPerG,
       proofChargeFillPressureMPa: proof.fillPressureMPa,

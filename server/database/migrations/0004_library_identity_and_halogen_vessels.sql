@@ -1,0 +1,13 @@
+ALTER TABLE "materials" ADD COLUMN "decomposition_onset_c" double precision;--> statement-breakpoint
+ALTER TABLE "materials" ADD COLUMN "decomposition_method" text;--> statement-breakpoint
+ALTER TABLE "materials" ADD COLUMN "decomposition_evidence" text;--> statement-breakpoint
+ALTER TABLE "materials" ADD COLUMN "decomposition_recorded_by" uuid;--> statement-breakpoint
+ALTER TABLE "materials" ADD COLUMN "decomposition_recorded_at" timestamp with time zone;--> statement-breakpoint
+ALTER TABLE "materials" ADD COLUMN "identity_recorded_by" uuid;--> statement-breakpoint
+ALTER TABLE "materials" ADD COLUMN "identity_recorded_at" timestamp with time zone;--> statement-breakpoint
+ALTER TABLE "materials" ADD COLUMN "boiling_point_c" double precision;--> statement-breakpoint
+ALTER TABLE "materials" ADD COLUMN "vapour_pressure_kpa" double precision;--> statement-breakpoint
+ALTER TABLE "materials" ADD COLUMN "chlorine_pct" double precision;--> statement-breakpoint
+ALTER TABLE "vessels" ADD COLUMN "halogen_resistant" boolean DEFAULT false NOT NULL;--> statement-breakpoint
+ALTER TABLE "materials" ADD CONSTRAINT "materials_decomposition_recorded_by_users_id_fk" FOREIGN KEY ("decomposition_recorded_by") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "materials" ADD CONSTRAINT "materials_identity_recorded_by_users_id_fk" FOREIGN KEY ("identity_recorded_by") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;
