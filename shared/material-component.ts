@@ -45,17 +45,17 @@ export function libraryIdentity(m: MaterialLike): LibraryIdentity {
 const CONTAINMENT = /capsule/i
 
 /**
- * The material's identity (formula, structure, composition, category, declared hazard, decomposition energy) is
- * laid over the run's: a run may fill a field the material leaves empty and may declare a stricter hazard, never
- * remove or replace one. A run's heating value counts only when it is not below the material's (the larger heat
- * release is the safe side); mass, fuse and the like come from the run.
+ * The material's identity (formula, structure, composition, category, declared hazard, decomposition energy)
+ * travels into the run as the library holds it: the run's own values for these are dropped, except a stricter
+ * declared hazard. What the library leaves empty stays empty: a supervisor records it there, not a planner on a
+ * run. Volatility and chlorine share take the more cautious of the two; a run's heating value counts only when it
+ * is not below the material's (the larger heat release is the safe side); mass, fuse and the like come from the run.
  */
 export function componentFromMaterial(m: MaterialLike, over: Partial<ChargeComponentInput>, role: ComponentRole = 'sample'): ChargeComponentInput {
   const run = Object.fromEntries(Object.entries(over).filter(([, v]) => v !== undefined)) as Partial<ChargeComponentInput>
-  delete run.library
-  delete run.heatingValueFrom
+  for (const field of ['library', 'heatingValueFrom', 'formula', 'smiles', 'composition', 'category', 'decompositionEnergyJPerG'] as const) delete run[field]
   const c: ChargeComponentInput = { ...run, role, name: run.name ?? m.name }
-  const hazard = stricterHazard(m.declaredHazard as DeclaredHazard, run.declaredHazard)
+  const hazard = stricterHazard(m.declaredHazard as DeclaredHazard, over.declaredHazard)
   if (hazard) c.declaredHazard = hazard
   if (m.formula) c.formula = m.formula
   if (m.smiles) c.smiles = m.smiles

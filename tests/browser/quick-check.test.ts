@@ -19,6 +19,9 @@ describe('Quick check in Chromium', () => {
     await sample.getByLabel('Unit of the heating value').selectOption('J/g')
     // Benzoic acid weighed in air, 26,454 J/g (NIST SRM 39j certificate).
     await sample.getByLabel('Heating value, if known').fill('26454')
+    // Its structure, so the energetic screen can clear it (no group of UN Appendix 6, Table A6.1).
+    await sample.getByRole('radio', { name: 'structure' }).check()
+    await sample.getByLabel('Structure as SMILES').fill('OC(=O)c1ccccc1')
     const wire = page.getByTestId('component-fuse-1')
     await wire.getByLabel('Fuse type').selectOption('nichrome')
     await wire.getByLabel('Burnt length (cm)').fill('10')

@@ -1,0 +1,58 @@
+import { describe, expect, it } from 'vitest'
+import { openPage, shot, signInAs } from '../support/browser'
+
+// The energetic screen as the analyst meets it (UN Manual of Tests and Criteria, Appendix 6; the lab's identity rules).
+describe('energetic screening in the browser', () => {
+  it('blocks a library material the supervisor marked energetic, with the reason', async () => {
+    const page = await openPage({ width: 1400, height: 1000 })
+    await signInAs(page, 'analyst@emberline.test')
+    await page.goto('/plans')
+    await page.getByLabel('Name').fill(`Screen ${Date.now().toString(36)}`)
+    await page.getByLabel('Default vessel').selectOption({ label: await page.locator('select option', { hasText: 'KR-1 Aster' }).first().textContent() ?? '' })
+    await page.getByRole('button', { name: 'Create and add runs' }).click()
+    await page.waitForURL(/\/plans\/[0-9a-f-]{36}$/)
+    await page.getByTestId('entry-code').fill('RP-1-A')
+    await page.getByTestId('entry-material').fill('Recovered propellant fines (client RP-1)')
+    await page.getByTestId('entry-mass').fill('0.5')
+    await page.getByTestId('entry-mass').press('Enter')
+    await page.getByTestId('plan-table').locator('td', { hasText: 'RP-1-A' }).first().waitFor()
+    const row = await page.getByTestId('run-1').textContent()
+    expect(row).toContain('Blocked')
+    expect(row).toContain('declared energetic in the materials library')
+    expect(row).toContain('never in a standard vessel')
+    await shot(page, 'plan-energetic-material')
+    await page.close()
+  })
+
+  it('asks for the structure of a formula-only sample and clears it once given', async () => {
+    const page = await openPage({ width: 1280, height: 1100 })
+    await signInAs(page, 'analyst@emberline.test')
+    await page.goto('/check')
+    await page.getByTestId('pick-vessel-KR-1 Aster').click()
+    const sample = page.getByTestId('component-sample-1')
+    await sample.getByLabel('Mass (g)').fill('1.0')
+    await sample.getByLabel('Unit of the heating value').selectOption('J/g')
+    // Glycerol, about 18.0 kJ/g (from memory); C3H8O3 holds three O with OB −1600·(6 + 4 − 3)/92.09 = −121.6 % [C].
+    await sample.getByLabel('Heating value, if known').fill('18000')
+    await sample.getByRole('radio', { name: 'formula' }).check()
+    await sample.getByLabel('Molecular formula').fill('C3H8O3')
+    const wire = page.getByTestId('component-fuse-1')
+    await wire.getByLabel('Fuse type').selectOption('nichrome')
+    await wire.getByLabel('Burnt length (cm)').fill('10')
+    await page.getByTestId('fill-pressure').fill('3.0')
+    const verdict = page.getByTestId('verdict')
+    await verdict.getByText('Needs approval').waitFor()
+    await verdict.getByText('Checked by the server').waitFor()
+    const finding = page.locator('[data-code="structure-needed"]')
+    await expect(finding.textContent()).resolves.toContain('Give the structure (SMILES)')
+    await shot(page, 'quick-check-structure-needed')
+
+    await sample.getByRole('radio', { name: 'structure' }).check()
+    await sample.getByLabel('Structure as SMILES').fill('OCC(O)CO')
+    await verdict.getByText('Clear').waitFor()
+    await verdict.getByText('Checked by the server').waitFor()
+    await expect(page.locator('[data-code="structure-needed"]').count()).resolves.toBe(0)
+    await shot(page, 'quick-check-structure-given')
+    await page.close()
+  })
+})
