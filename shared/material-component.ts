@@ -43,6 +43,8 @@ export function libraryIdentity(m: MaterialLike): LibraryIdentity {
 }
 
 const CONTAINMENT = /capsule/i
+// Fields only the materials library speaks for: a run's values for them are dropped.
+const LIBRARY_OWNED: ReadonlySet<string> = new Set(['library', 'heatingValueFrom', 'formula', 'smiles', 'composition', 'category', 'decompositionEnergyJPerG'])
 
 /**
  * The material's identity (formula, structure, composition, category, declared hazard, decomposition energy)
@@ -52,8 +54,7 @@ const CONTAINMENT = /capsule/i
  * is not below the material's (the larger heat release is the safe side); mass, fuse and the like come from the run.
  */
 export function componentFromMaterial(m: MaterialLike, over: Partial<ChargeComponentInput>, role: ComponentRole = 'sample'): ChargeComponentInput {
-  const run = Object.fromEntries(Object.entries(over).filter(([, v]) => v !== undefined)) as Partial<ChargeComponentInput>
-  for (const field of ['library', 'heatingValueFrom', 'formula', 'smiles', 'composition', 'category', 'decompositionEnergyJPerG'] as const) delete run[field]
+  const run = Object.fromEntries(Object.entries(over).filter(([k, v]) => v !== undefined && !LIBRARY_OWNED.has(k))) as Partial<ChargeComponentInput>
   const c: ChargeComponentInput = { ...run, role, name: run.name ?? m.name }
   const hazard = stricterHazard(m.declaredHazard as DeclaredHazard, over.declaredHazard)
   if (hazard) c.declaredHazard = hazard
