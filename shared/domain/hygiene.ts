@@ -25,7 +25,8 @@ function codePoint(ch: string): string {
  * when the text is clean. A look-alike letter (Cyrillic С for Latin C) is refused here, never silently dropped.
  */
 export function chemicalTextProblem(text: string, what: 'formula' | 'structure'): TextProblem | undefined {
-  const normal = normaliseChemicalText(text)
+  // Surrounding white space (a pasted line end) is trimmed, as the field is; positions count in the trimmed text.
+  const normal = normaliseChemicalText(text).trim()
   let position = 0
   for (const ch of normal) {
     position++
