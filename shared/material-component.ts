@@ -29,6 +29,7 @@ export interface MaterialLike {
 export function libraryIdentity(m: MaterialLike): LibraryIdentity {
   const out: LibraryIdentity = { name: m.name }
   if (m.id) out.materialId = m.id
+  if (m.declaredHazard && m.declaredHazard !== 'none') out.declaredHazard = m.declaredHazard as DeclaredHazard
   if (m.identityRecordedBy || m.reference) out.classification = `${m.category ?? 'material'}${m.reference ? ', shipped reference material' : ', recorded by a supervisor'}`
   if (m.decompositionEnergyJPerG !== null && m.decompositionRecordedBy) {
     out.decomposition = {

@@ -85,6 +85,8 @@ export interface ScreeningResult {
 
 export interface ScreeningInput {
   declaredHazard?: DeclaredHazard | undefined
+  /** Who declared the hazard: the materials library or the planner. */
+  declaredBy?: 'library' | 'planner' | undefined
   /** Groups found in the structure; undefined when no structure is known. */
   groups?: readonly ExplosophoreGroup[] | undefined
   /** Atom counts from a formula or structure. */
@@ -188,7 +190,7 @@ export function screenComponent(input: ScreeningInput, policy: LabPolicy): Scree
   const onsetLimit = policy.decompositionOnsetLimitC
 
   if (input.declaredHazard === 'energetic') {
-    return result('energetic', 'declared energetic', input.libraryClassification ? 'declared energetic in the materials library' : 'declared energetic by the planner')
+    return result('energetic', 'declared energetic', input.declaredBy === 'library' ? 'declared energetic in the materials library' : 'declared energetic by the planner')
   }
 
   if (groups.length > 0) {

@@ -36,6 +36,8 @@ export interface LibraryIdentity {
   name: string
   /** Classification recorded by a supervisor, or a shipped reference material. */
   classification?: string
+  /** The hazard the library declares for the material. */
+  declaredHazard?: DeclaredHazard
   decomposition?: DecompositionRecord
 }
 

@@ -200,6 +200,7 @@ function buildComponent(c: ResolvedComponent, index: number, policy: LabPolicy):
     model.screening = screenComponent(
       {
         declaredHazard: c.declaredHazard,
+        declaredBy: c.library?.declaredHazard !== undefined && c.library.declaredHazard === c.declaredHazard ? 'library' : 'planner',
         groups: r?.explosophores,
         atoms: r?.atoms,
         molarMassGPerMol: r?.molarMassGPerMol,
