@@ -37,7 +37,7 @@ function valid() {
   return {
     vessel: { ratedEnergyJ: 33000, maxChargeMassG: 1.5, maxFillPressureMPa: 4.05, volumeMl: 300, class: 'standard' },
     fillPressureMPa: 3.0,
-    components: [{ role: 'sample', massG: 1.0, heatingValueJPerG: 26454 }, { role: 'fuse', wire: 'nichrome', lengthCm: 10 }],
+    components: [{ role: 'sample', massG: 1.0, heatingValueJPerG: 26454, smiles: 'OC(=O)c1ccccc1' }, { role: 'fuse', wire: 'nichrome', lengthCm: 10 }],
   }
 }
 

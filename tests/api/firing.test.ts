@@ -111,7 +111,7 @@ describe('refusals (nothing is recorded or counted)', () => {
   it('409 when the run is not ready (a draft, an already fired run)', async () => {
     const v = await registerVessel()
     const plan = await call('POST', '/api/plans', { cookie: await as('analyst'), body: { name: unique('p'), vesselId: v.id, fillPressureMPa: 3 } })
-    const draft = await call('POST', `/api/plans/${plan.body.id}/runs`, { cookie: await as('analyst'), body: { sampleCode: unique('D'), components: [{ role: 'sample', name: 'x', massG: 1, heatingValueJPerG: 26_454 }] } })
+    const draft = await call('POST', `/api/plans/${plan.body.id}/runs`, { cookie: await as('analyst'), body: { sampleCode: unique('D'), components: [{ role: 'sample', name: 'x', massG: 1, heatingValueJPerG: 26_454, smiles: 'OC(=O)c1ccccc1' }] } })
     const res = await fire(draft.body.id)
     expect(res.status).toBe(409)
     expect(res.body.message).toMatch(/draft/)

@@ -75,7 +75,7 @@ describe('plans and runs', () => {
 
   it('refuses to submit a run without a planned sample mass', async () => {
     const p = await newPlan(vessel.id)
-    await addRun(p.id, { sampleCode: 'NOMASS', components: [{ role: 'sample', heatingValueJPerG: 26454 }] })
+    await addRun(p.id, { sampleCode: 'NOMASS', components: [{ role: 'sample', heatingValueJPerG: 26454, smiles: 'OC(=O)c1ccccc1' }] })
     const res = await call('POST', `/api/plans/${p.id}/submit`, { cookie: await as('analyst'), body: {} })
     expect(res.status).toBe(422)
     expect(res.body.data.fields[0].path).toBe('runs.1.massG')

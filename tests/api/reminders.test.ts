@@ -177,7 +177,7 @@ describe('a lock-out on firing', () => {
     const analyst = await as('analyst')
     const plan = (await call('POST', '/api/plans', { cookie: analyst, body: { name: unique('Over'), vesselId: v.id, fillPressureMPa: 3.0 } })).body
     // 1 g of benzoic acid (26,454 J/g weighed in air, NIST SRM 39j): well inside the 33 kJ rating, a clear charge.
-    const run = (await call('POST', `/api/plans/${plan.id}/runs`, { cookie: analyst, body: { sampleCode: unique('OP'), components: [{ role: 'sample', massG: 1.0, heatingValueJPerG: 26454 }, { role: 'fuse', wire: 'nichrome', lengthCm: 10 }] } })).body
+    const run = (await call('POST', `/api/plans/${plan.id}/runs`, { cookie: analyst, body: { sampleCode: unique('OP'), components: [{ role: 'sample', massG: 1.0, heatingValueJPerG: 26454, smiles: 'OC(=O)c1ccccc1' }, { role: 'fuse', wire: 'nichrome', lengthCm: 10 }] } })).body
     await call('POST', `/api/plans/${plan.id}/submit`, { cookie: analyst, body: {} })
     const fired = await call('POST', `/api/runs/${run.id}/firing`, { cookie: analyst, headers: { 'idempotency-key': unique('op') }, body: { outcome: 'overpressure', weighedMassG: 1.0 } })
     expect(fired.status, JSON.stringify(fired.body)).toBe(201)

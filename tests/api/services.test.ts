@@ -345,7 +345,7 @@ describe('a check run returns a serviced vessel to service', () => {
     expect(serviced.body.vessel.state).toBe('awaiting-verification')
     const analyst = await as('analyst')
     const plan = (await call('POST', '/api/plans', { cookie: analyst, body: { name: unique('Verify'), vesselId: v.id, fillPressureMPa: 3.0 } })).body
-    const charge = (kind: string) => ({ sampleCode: unique(kind.slice(0, 3).toUpperCase()), kind, components: [{ role: 'sample', massG: 1.0, heatingValueJPerG: BA }, { role: 'fuse', wire: 'platinum', lengthCm: 10 }] })
+    const charge = (kind: string) => ({ sampleCode: unique(kind.slice(0, 3).toUpperCase()), kind, components: [{ role: 'sample', massG: 1.0, heatingValueJPerG: BA, smiles: 'OC(=O)c1ccccc1' }, { role: 'fuse', wire: 'platinum', lengthCm: 10 }] })
     const sample = await call('POST', `/api/plans/${plan.id}/runs`, { cookie: analyst, body: charge('sample') })
     expect(sample.body.assessment.verdict).toBe('blocked')
     await call('POST', `/api/runs/${sample.body.id}/withdraw`, { cookie: analyst, body: {} })

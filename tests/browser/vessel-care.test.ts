@@ -90,7 +90,7 @@ describe('vessel care in Chromium', () => {
     // benzoic acid's 26,454 J/g (NIST SRM 39j, weighed in air) within the policy's 0.3 % (common practice).
     const analyst = await as('analyst')
     const plan = (await call('POST', '/api/plans', { cookie: analyst, body: { name: unique('Verify'), vesselId: id, fillPressureMPa: 3.0 } })).body
-    const charge = (kind: string) => ({ sampleCode: unique(kind.slice(0, 3).toUpperCase()), kind, components: [{ role: 'sample', massG: 1.0, heatingValueJPerG: 26454 }, { role: 'fuse', wire: 'platinum', lengthCm: 10 }] })
+    const charge = (kind: string) => ({ sampleCode: unique(kind.slice(0, 3).toUpperCase()), kind, components: [{ role: 'sample', massG: 1.0, heatingValueJPerG: 26454, smiles: 'OC(=O)c1ccccc1' }, { role: 'fuse', wire: 'platinum', lengthCm: 10 }] })
     const runs = []
     for (let i = 0; i < 5; i++) runs.push((await call('POST', `/api/plans/${plan.id}/runs`, { cookie: analyst, body: charge('standardisation') })).body)
     const check = (await call('POST', `/api/plans/${plan.id}/runs`, { cookie: analyst, body: charge('check') })).body
