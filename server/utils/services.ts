@@ -1,12 +1,11 @@
 // Servicing records of a vessel (issue 6): what each kind records, and what it does to the vessel.
 // Records are never edited: a correction is a new record pointing to the one it corrects.
-import type { H3Event } from 'h3'
 import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm'
 import { z } from 'zod'
 import type { LabPolicy } from '#shared/domain/policy'
 import type { VesselCondition } from '#shared/domain/vessel-state'
 import type { services } from '../database/schema'
-import type { AuthedUser } from './auth'
+import type { Act } from './refusal'
 import type { AttachmentRow } from './uploads'
 import type { VesselRow } from './vessels'
 
@@ -140,7 +139,7 @@ export interface ServiceEffect {
 }
 
 function conflict(message: string): never {
-  throw createError({ statusCode: 409, message })
+  throw new Refusal('conflict', message)
 }
 
 /** Locks out, or keeps an existing lock-out; a failed bench check never replaces a lock-out that needs requalification. */
@@ -260,7 +259,8 @@ async function claimAttachments(tx: Tx, vesselId: string, ids: string[]) {
 }
 
 /** Records a servicing record, signed and audited, and applies its effect to the vessel — all in one transaction. */
-export async function recordService(event: H3Event, user: AuthedUser, vesselId: string, input: ServiceInput) {
+export async function recordService(act: Act, vesselId: string, input: ServiceInput) {
+  const { user } = act
   const policy = await getPolicy()
   return await useDb().transaction(async (tx) => {
     const before = await findVesselOr404(tx, vesselId, true)
@@ -276,7 +276,7 @@ export async function recordService(event: H3Event, user: AuthedUser, vesselId: 
       if (!original || original.vesselId !== vesselId) invalidInput([{ path: 'correctsId', message: 'no such record of this vessel' }])
       if (original.kind !== input.kind) invalidInput([{ path: 'correctsId', message: `a correction has the kind of the record it corrects (${original.kind})` }])
       const [later] = await tx.select({ id: schema.services.id }).from(schema.services).where(eq(schema.services.correctsId, original.id))
-      if (later) throw createError({ statusCode: 409, message: 'That record is already corrected: correct its latest version.', data: { correctedById: later.id } })
+      if (later) throw new Refusal('conflict', 'That record is already corrected: correct its latest version.', { correctedById: later.id })
     }
     const files = await claimAttachments(tx, vesselId, input.attachmentIds)
 
@@ -317,7 +317,7 @@ export async function recordService(event: H3Event, user: AuthedUser, vesselId: 
     }).returning()
     const [after] = await tx.update(schema.vessels).set(change).where(eq(schema.vessels.id, vesselId)).returning()
     if (files.length) await tx.update(schema.attachments).set({ serviceId: row!.id }).where(inArray(schema.attachments.id, files.map(f => f.id)))
-    await audit(tx, event, {
+    await audit(tx, act, {
       action: isCorrection ? `service.correct` : `service.${input.kind}`,
       entity: 'vessel',
       entityId: vesselId,
@@ -326,7 +326,7 @@ export async function recordService(event: H3Event, user: AuthedUser, vesselId: 
       reason: effect.message,
     })
     // A lock-out is mailed now, in this transaction; the fleet check then finds it already told.
-    await notifyVesselTransition(tx, event, after!, policy, at)
+    await notifyVesselTransition(tx, act, after!, policy, at)
     const attached = files.length ? await tx.select().from(schema.attachments).where(eq(schema.attachments.serviceId, row!.id)) : []
     return { service: serviceView(row!, attached, null), vessel: vesselView(after!, policy, at), effect: { message: effect.message } }
   })

@@ -39,6 +39,8 @@ export interface LabPolicy {
   standardisationRuns: number
   standardisationMaxRsdPct: number
   checkRunTolerancePct: number
+  signedMassTolerancePct: number
+  minSampleMassG: number
   electrodeResistanceMaxOhm: number
   uploadMaxBytes: number
   sessionIdleMinutes: number
@@ -77,6 +79,8 @@ export const DEFAULT_POLICY: LabPolicy = {
   standardisationRuns: 5,
   standardisationMaxRsdPct: 0.2,
   checkRunTolerancePct: 0.3,
+  signedMassTolerancePct: 2,
+  minSampleMassG: 0.010,
   electrodeResistanceMaxOhm: 5,
   uploadMaxBytes: 10485760,
   sessionIdleMinutes: 60,
@@ -123,6 +127,8 @@ export const labPolicySchema = z
     standardisationRuns: count().max(50),
     standardisationMaxRsdPct: positive().max(10),
     checkRunTolerancePct: positive().max(10),
+    signedMassTolerancePct: nonNegative().max(20),
+    minSampleMassG: positive().max(10),
     electrodeResistanceMaxOhm: positive().max(1000),
     uploadMaxBytes: count().max(1073741824),
     sessionIdleMinutes: count().max(1440),
@@ -185,6 +191,8 @@ export const POLICY_DESCRIPTIONS: Readonly<Record<keyof LabPolicy, PolicyDescrip
   standardisationRuns: { label: 'Standardisation runs per series', unit: 'runs', source: 'ISO 1928: five runs (from memory); ASTM D240: at least six' },
   standardisationMaxRsdPct: { label: 'Standardisation series relative standard deviation limit', unit: '%', source: 'ISO 1928 (from memory)' },
   checkRunTolerancePct: { label: 'Check run agreement with the certified value', unit: '%', source: 'common practice' },
+  signedMassTolerancePct: { label: 'A signature covers a weighed sample mass up to this much above the signed mass', unit: '%', source: 'common practice' },
+  minSampleMassG: { label: 'Smallest sample mass accepted', unit: 'g', source: 'common practice (about 10 mg; below it the balance uncertainty dominates)' },
   electrodeResistanceMaxOhm: { label: 'Electrode resistance limit after service', unit: 'Ω', source: 'common practice' },
   uploadMaxBytes: { label: 'Largest data file accepted', unit: 'bytes', source: 'common practice' },
   sessionIdleMinutes: { label: 'Sign out after idle', unit: 'minutes', source: 'common practice' },

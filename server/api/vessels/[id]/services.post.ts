@@ -6,11 +6,7 @@ export default defineEventHandler(async (event) => {
   const input = await parseBody(event, serviceInputSchema)
   // The checklist rules come before the password: a refused record needs no signature.
   checkServiceRules(input, await findVesselOr404(useDb(), id), new Date(), !!input.correctsId)
-  await verifySigner(event, user.id, input.password, 'vessel', id)
-  const result = await recordService(event, user, id, input)
-  // A fresh session after a signature, as for approvals.
-  const session = await getUserSession(event)
-  await replaceUserSession(event, { user: session.user, epoch: session.epoch, loggedInAt: session.loggedInAt, lastSeenAt: Date.now() })
+  const result = await signWithPassword(event, user, { entity: 'vessel', entityId: id, password: input.password }, signer => recordService(signer, id, input))
   setResponseStatus(event, 201)
   return result
 })
