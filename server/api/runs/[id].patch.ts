@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm'
-import { runInputSchema } from '#shared/schemas/plans'
+import { runPatchSchema } from '#shared/schemas/plans'
 import type { RunInput } from '#shared/schemas/plans'
 import { runActRefusal, withHandler } from '#shared/domain/run-lifecycle'
 
@@ -9,7 +9,7 @@ import { runActRefusal, withHandler } from '#shared/domain/run-lifecycle'
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'analyst')
   const { id } = parseParams(event, idParam)
-  const input = await parseBody(event, runInputSchema.partial())
+  const input = await parseBody(event, runPatchSchema)
   const policy = await getPolicy()
   const run = await useDb().transaction(async (tx) => {
     const before = await findRunOr404(tx, id, true)
