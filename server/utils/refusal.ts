@@ -1,4 +1,5 @@
 import type { H3Event } from 'h3'
+import { LifecycleRefusal } from '#shared/domain/vessel-lifecycle'
 import type { AuthedUser } from './auth'
 
 // Services speak of refusals in domain terms; the HTTP layer turns them into status codes in one place.
@@ -13,13 +14,14 @@ export class Refusal extends Error {
   }
 }
 
-/** Runs a service and answers its refusals with their HTTP status (422, 403, 404, 409). */
+/** Runs a service and answers its refusals (and the domain's lifecycle refusals) with their HTTP status (422, 403, 404, 409). */
 export async function answering<T>(work: () => Promise<T>): Promise<T> {
   try {
     return await work()
   }
   catch (err) {
     if (err instanceof Refusal) throw createError({ statusCode: STATUS[err.kind], message: err.message, data: err.data })
+    if (err instanceof LifecycleRefusal) throw createError({ statusCode: 409, message: err.message })
     throw err
   }
 }

@@ -1,3 +1,5 @@
+import { serviceInputSchema } from '#shared/schemas/services'
+
 // A servicing record (technician): signed by re-entering the password, audited, and applied to the
 // vessel in the same transaction (counters, dates, condition). Files are uploaded first and named by id.
 export default defineEventHandler(async (event) => {
