@@ -12,7 +12,7 @@ export interface Signature { id: string, signerName: string, meaning: string, re
 export interface Run {
   id: string, planId: string, seq: number, sampleCode: string, kind: 'sample' | 'standardisation' | 'check', vesselId: string, fillPressureMPa: number
   components: RunComponent[], status: RunStatus, verdict: Assessment['verdict'], assessment: Assessment, chargeHash: string, note: string
-  plannedBy: string, signatures: Signature[]
+  plannedBy: string, editedBy: string[], submittedBy: string[], statusReason: string | null, signatures: Signature[]
 }
 export interface PlanDetail {
   id: string, name: string, vesselId: string, fillPressureMPa: number, note: string, createdBy: string, createdByName: string, submittedAt: string | null, createdAt: string

@@ -10,7 +10,7 @@ if (!url) throw new Error('NUXT_DATABASE_URL is not set')
 const json = process.argv.includes('--json')
 
 // A reset is a routine service that passed its checks or a passing requalification, not a correction
-// (server/utils/services.ts: serviceEffect, correctionEffect), recorded through the app: its audit row carries the
+// (shared/domain/vessel-lifecycle.ts: serviceEffect, correctionEffect), recorded through the app: its audit row carries the
 // vessel's counters after it. Records loaded as history without that row did not reset anything.
 const QUERY = `
 with resets as (

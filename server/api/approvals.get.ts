@@ -1,6 +1,8 @@
 import { asc, eq } from 'drizzle-orm'
+import { runDutyConflict } from '#shared/domain/run-lifecycle'
 
-// The approvals queue: each waiting run with its findings, the numbers behind them and the analyst's note.
+// The approvals queue: each waiting run with its findings, the numbers behind them, the analyst's note and, for a
+// run sent back at the firing, why it needs a new signature.
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'supervisor')
   const db = useDb()
@@ -18,6 +20,8 @@ export default defineEventHandler(async (event) => {
     plannerName: r.plannerName,
     vesselName: r.vesselName,
     vesselClass: r.vesselClass,
-    ownRun: r.run.plannedBy === user.id,
+    // The signer's own part in the run (planned, edited, submitted): they may not sign it.
+    dutyConflict: runDutyConflict(r.run, user.id),
+    ownRun: runDutyConflict(r.run, user.id) !== null,
   }))
 })

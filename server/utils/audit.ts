@@ -12,7 +12,7 @@ export interface AuditEntry {
 }
 
 /** Writes one audit row inside the caller's transaction, so the change and its record commit together. */
-export async function audit(tx: Tx, event: H3Event | null, entry: AuditEntry) {
+export async function audit(tx: Tx, event: Pick<H3Event, 'context'> | null, entry: AuditEntry) {
   const actor = entry.actor === undefined ? event?.context.user ?? null : entry.actor
   await tx.insert(schema.auditLog).values({
     actorId: actor?.id ?? null,

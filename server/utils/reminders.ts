@@ -60,7 +60,7 @@ export interface TransitionResult { vesselId: string, name: string, from: string
  * claims the change (a second worker finds nothing left to claim) and, for a state that needs someone,
  * the e-mail is queued in the same transaction with a dedupe key — so it is sent once or not at all.
  */
-export async function notifyVesselTransition(tx: Tx, event: H3Event | null, v: VesselRow, policy: LabPolicy, now = new Date()): Promise<TransitionResult> {
+export async function notifyVesselTransition(tx: Tx, event: Pick<H3Event, 'context'> | null, v: VesselRow, policy: LabPolicy, now = new Date()): Promise<TransitionResult> {
   const view = vesselView(v, policy, now)
   const result: TransitionResult = { vesselId: v.id, name: v.name, from: v.notifiedState, to: view.state, claimed: false, mailed: false, dedupeKey: null }
   if (view.state === v.notifiedState) return result

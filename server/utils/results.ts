@@ -16,6 +16,7 @@ import {
 } from '../../shared/domain/results'
 import type { Basis, BasisConditions, CorrectionEstimate, DuplicateAssessment, UncertaintyBudget } from '../../shared/domain/results'
 import type { RunComponent } from '../../shared/schemas/plans'
+import { checkRunEffect } from '../../shared/domain/vessel-lifecycle'
 import type { CertificateContent, CertificateRow } from './certificate'
 
 export type ResultRow = typeof schema.results.$inferSelect
@@ -536,27 +537,20 @@ export function resultHash(r: Pick<ResultRow, 'id' | 'inputs' | 'values' | 'revi
   return createHash('sha256').update(JSON.stringify({ id: r.id, revision: r.revision, inputs: r.inputs, values: r.values })).digest('hex')
 }
 
-/** A check run that passes returns a vessel awaiting verification to service, in the caller's transaction. */
+/** A check run that passes returns a vessel awaiting verification to service (rule: checkRunEffect), in the caller's transaction. */
 export async function applyCheckOutcome(tx: Tx, event: Parameters<typeof audit>[1], run: RunRow, values: ResultValues, resultId: string) {
   if (run.kind !== 'check' || !values.check) return null
   const vessel = await findVesselOr404(tx, run.vesselId, true)
-  const dev = values.check.deviationPct.toFixed(3)
-  const tol = values.check.tolerancePct.toFixed(2)
-  if (vessel.condition !== 'awaiting-verification') {
-    return { returnedToService: false, message: `Check run ${values.check.passed ? 'agrees' : 'does not agree'} with the certified value (deviation ${dev} %, tolerance ± ${tol} %).` }
-  }
-  if (!values.check.passed) {
-    return { returnedToService: false, message: `The check run deviates by ${dev} % from the certified value, outside ± ${tol} %: ${vessel.name} stays awaiting verification. Look for the cause (leak, incomplete combustion, weighing) and fire another check run.` }
-  }
+  const effect = checkRunEffect(vessel, run.sampleCode, values.check)
+  if (!effect.returnedToService) return { returnedToService: false, message: effect.message }
   const now = new Date()
-  const reason = `Check run ${run.sampleCode} agreed with the certified value within ${dev} % (tolerance ± ${tol} %).`
-  await tx.update(schema.vessels).set({ condition: 'normal', conditionReason: reason, conditionSince: now, updatedAt: now }).where(eq(schema.vessels.id, vessel.id))
+  await tx.update(schema.vessels).set({ condition: 'normal', conditionReason: effect.reason, conditionSince: now, updatedAt: now }).where(eq(schema.vessels.id, vessel.id))
   await audit(tx, event, {
     action: 'vessel.return-to-service', entity: 'vessel', entityId: vessel.id,
     oldValues: { condition: vessel.condition }, newValues: { condition: 'normal', checkResultId: resultId, deviationPct: values.check.deviationPct },
-    reason,
+    reason: effect.reason,
   })
-  return { returnedToService: true, message: `${reason} ${vessel.name} is back in service.` }
+  return { returnedToService: true, message: effect.message }
 }
 
 type SignatureRow = typeof schema.signatures.$inferSelect

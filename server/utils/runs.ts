@@ -1,10 +1,11 @@
 import { createHash } from 'node:crypto'
-import { asc, eq, inArray } from 'drizzle-orm'
+import { asc, eq, inArray, max } from 'drizzle-orm'
 import { z } from 'zod'
 import { assess, chargeInputSchema, ChargeInputError } from '#shared/domain/assessment'
 import type { Assessment, ChargeComponentInput } from '#shared/domain/assessment'
 import type { LabPolicy } from '#shared/domain/policy'
 import { componentFromMaterial } from '#shared/material-component'
+import { runKindProblems } from '#shared/domain/run-lifecycle'
 import type { RunComponent, RunStatus } from '#shared/schemas/plans'
 import type { plans, runs } from '../database/schema'
 
@@ -13,13 +14,16 @@ export type PlanRow = typeof plans.$inferSelect
 
 export const idParam = z.object({ id: z.string().uuid('an id (UUID)') })
 
-/** The verdict decides where a submitted run goes (DESIGN.md §3, issue 4). */
+/** The verdict decides where a submitted run goes: clear → ready, needs approval → awaiting a signature, blocked. */
 export function statusForVerdict(verdict: Assessment['verdict']): RunStatus {
   return verdict === 'clear' ? 'ready' : verdict === 'needs-approval' ? 'awaiting-approval' : 'blocked'
 }
 
-/** Fills each component from its material and turns a run into a charge for the assessment. */
-export async function buildCharge(db: Db | Tx, components: RunComponent[]): Promise<ChargeComponentInput[]> {
+/**
+ * Fills each component from its material and turns a run into a charge for the assessment; with the run's kind,
+ * a standardisation or check run that does not burn the lab's reference standard is refused (422 naming the sample).
+ */
+export async function buildCharge(db: Db | Tx, components: RunComponent[], kind?: string): Promise<ChargeComponentInput[]> {
   const ids = [...new Set(components.flatMap(c => c.materialId ? [c.materialId] : []))]
   const found = ids.length ? await db.select().from(schema.materials).where(inArray(schema.materials.id, ids)) : []
   const byId = new Map(found.map(m => [m.id, m]))
@@ -34,13 +38,21 @@ export async function buildCharge(db: Db | Tx, components: RunComponent[]): Prom
     }
     return componentFromMaterial(m, rest, c.role)
   })
+  if (kind) {
+    const samples = components.flatMap((c, index) => {
+      if (c.role !== 'sample') return []
+      const m = c.materialId ? byId.get(c.materialId) : undefined
+      return [{ index, materialId: c.materialId, materialName: m?.name, category: m?.category, description: c.name }]
+    })
+    for (const p of runKindProblems(kind, samples)) issues.push({ path: p.index < 0 ? 'components' : `components.${p.index}.materialId`, message: p.message })
+  }
   if (issues.length) invalidInput(issues)
   return out
 }
 
 /** Assesses a run on the server (authoritative) against its vessel as it stands now. */
 export async function assessRun(db: Db | Tx, input: { vessel: VesselView, fillPressureMPa: number, components: RunComponent[], kind: string }, policy: LabPolicy) {
-  const components = await buildCharge(db, input.components)
+  const components = await buildCharge(db, input.components, input.kind)
   const parsed = chargeInputSchema.safeParse({
     vessel: assessmentVessel(input.vessel),
     fillPressureMPa: input.fillPressureMPa,
@@ -83,6 +95,20 @@ export async function findPlanOr404(db: Db | Tx, id: string, lock = false): Prom
   return row
 }
 
+export type NewRun = Omit<typeof schema.runs.$inferInsert, 'planId' | 'seq'>
+
+/**
+ * Inserts runs at the end of their plan, numbered after the last one. The plan row is locked, so concurrent insertions
+ * queue instead of reading the same last number; the unique index on (plan, number) stands behind it.
+ */
+export async function insertNumberedRuns(tx: Tx, planId: string, values: NewRun[]): Promise<RunRow[]> {
+  if (!values.length) return []
+  await findPlanOr404(tx, planId, true)
+  const [last] = await tx.select({ seq: max(schema.runs.seq) }).from(schema.runs).where(eq(schema.runs.planId, planId))
+  const start = last?.seq ?? 0
+  return await tx.insert(schema.runs).values(values.map((v, i) => ({ ...v, planId, seq: start + i + 1 }))).returning()
+}
+
 type SignatureRow = typeof schema.signatures.$inferSelect
 
 export function runView(r: RunRow, signatures: SignatureRow[] = []) {
@@ -101,6 +127,9 @@ export function runView(r: RunRow, signatures: SignatureRow[] = []) {
     chargeHash: r.chargeHash,
     note: r.note,
     plannedBy: r.plannedBy,
+    editedBy: r.editedBy,
+    submittedBy: r.submittedBy,
+    statusReason: r.statusReason,
     createdAt: r.createdAt,
     updatedAt: r.updatedAt,
     signatures: signatures.map(s => ({ id: s.id, signerName: s.signerName, meaning: s.meaning, reason: s.reason, signedAt: s.signedAt, current: s.boundHash === r.chargeHash })),

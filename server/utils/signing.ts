@@ -1,33 +1,67 @@
 import type { H3Event } from 'h3'
 import { eq } from 'drizzle-orm'
+import { runActRefusal, runDutyConflict } from '#shared/domain/run-lifecycle'
 import { signatureSchema } from '#shared/schemas/plans'
 import type { RunInput } from '#shared/schemas/plans'
+import type { Act } from './refusal'
+
+export interface SignRequest {
+  entity: string
+  entityId: string
+  password: string
+  /** The separation-of-duties sentence when the signer had a hand in the record (403), or null. */
+  conflict?: string | null
+}
+
+export interface Signer extends Act {
+  /** Writes the signature row inside the caller's transaction. */
+  sign: (tx: Tx, s: { entity: string, entityId: string, meaning: string, reason: string, boundHash: string }) => Promise<typeof schema.signatures.$inferSelect>
+}
+
+/** A fresh session after a signature: the signature renews the sign-in time it proved. */
+export async function renewSessionAfterSignature(event: H3Event) {
+  const session = await getUserSession(event)
+  await replaceUserSession(event, { user: session.user, epoch: session.epoch, loggedInAt: session.loggedInAt, lastSeenAt: Date.now() })
+}
+
+/**
+ * Every electronic signature goes through here: separation of duties, re-authentication with the signer's own
+ * password, the act itself (which writes the signature row and its audit row in one transaction), session renewal.
+ * Refusals of the act become 403/404/409/422 and renew nothing.
+ */
+export async function signWithPassword<T>(event: H3Event, user: AuthedUser, req: SignRequest, act: (signer: Signer) => Promise<T>): Promise<T> {
+  if (req.conflict) throw createError({ statusCode: 403, message: req.conflict, data: { reason: 'separation-of-duties' } })
+  await verifySigner(event, user.id, req.password, req.entity, req.entityId)
+  const signer: Signer = {
+    ...actOf(event, user),
+    sign: async (tx, s) => {
+      const [row] = await tx.insert(schema.signatures).values({ ...s, signerId: user.id, signerName: user.name }).returning()
+      return row!
+    },
+  }
+  const result = await answering(() => act(signer))
+  await renewSessionAfterSignature(event)
+  return result
+}
 
 type Decision = 'approve' | 'reject'
 const MEANING: Record<Decision, string> = { approve: 'approved as an exception', reject: 'rejected' }
 
 /**
- * A supervisor's electronic signature on a run awaiting approval (issue 4): re-authentication, separation of
- * duties, bound to the charge and its assessment as they stand; a changed charge must be asked for again.
+ * A supervisor's decision on a run awaiting approval, bound to the charge and its assessment as they stand now;
+ * a changed charge or assessment must be asked for again (the run is re-assessed and the refusal says so).
  */
-export async function signRun(event: H3Event, decision: Decision) {
-  const user = await requireRole(event, 'supervisor')
-  const { id } = parseParams(event, idParam)
-  const input = await parseBody(event, signatureSchema)
-  const db = useDb()
-  const current = await findRunOr404(db, id)
-  if (current.plannedBy === user.id) {
-    throw createError({ statusCode: 403, message: 'You planned this run: another supervisor must sign its exception (separation of duties).' })
-  }
-  await verifySigner(event, user.id, input.password, 'run', id)
+export async function signRun(signer: Signer, decision: Decision, id: string, input: { reason: string, chargeHash?: string }) {
   const policy = await getPolicy()
-
-  const outcome = await db.transaction(async (tx) => {
+  const { user } = signer
+  const outcome = await useDb().transaction(async (tx) => {
     const run = await findRunOr404(tx, id, true)
-    if (run.status === 'blocked') throw createError({ statusCode: 409, message: 'A blocked run can never be approved: the analyst must change the charge or withdraw the run.' })
-    if (run.status !== 'awaiting-approval') throw createError({ statusCode: 409, message: `This run is ${run.status}, not awaiting a signature.` })
+    const conflict = runDutyConflict(run, user.id)
+    if (conflict) throw new Refusal('forbidden', conflict, { reason: 'separation-of-duties' })
+    const refusal = runActRefusal(decision, run.status, run.sampleCode)
+    if (refusal) throw new Refusal('conflict', run.status === 'blocked' ? 'A blocked run can never be approved: the analyst must change the charge or withdraw the run.' : refusal, { reason: 'run-status', status: run.status })
     if (input.chargeHash && input.chargeHash !== run.chargeHash) {
-      throw createError({ statusCode: 409, message: 'The charge changed after you opened it: review the current charge and sign again.' })
+      throw new Refusal('conflict', 'The charge changed after you opened it: review the current charge and sign again.')
     }
     // Re-assess now: a vessel or policy change since the request means the request must be reviewed again.
     const vessel = vesselView(await findVesselOr404(tx, run.vesselId), policy)
@@ -35,17 +69,15 @@ export async function signRun(event: H3Event, decision: Decision) {
     if (chargeHash !== run.chargeHash) {
       const status = statusForVerdict(assessment.verdict)
       await tx.update(schema.runs).set({ assessment, verdict: assessment.verdict, chargeHash, status, updatedAt: new Date() }).where(eq(schema.runs.id, id))
-      await audit(tx, event, { action: 'run.reassessed', entity: 'run', entityId: id, oldValues: { verdict: run.verdict, status: run.status }, newValues: { verdict: assessment.verdict, status }, reason: 'assessment changed before the signature' })
+      await audit(tx, signer, { action: 'run.reassessed', entity: 'run', entityId: id, oldValues: { verdict: run.verdict, status: run.status }, newValues: { verdict: assessment.verdict, status }, reason: 'assessment changed before the signature' })
       return { changed: true as const, status }
     }
-    const [sig] = await tx.insert(schema.signatures).values({
-      entity: 'run', entityId: id, signerId: user.id, signerName: user.name, meaning: MEANING[decision], reason: input.reason, boundHash: run.chargeHash,
-    }).returning()
+    const sig = await signer.sign(tx, { entity: 'run', entityId: id, meaning: MEANING[decision], reason: input.reason, boundHash: run.chargeHash })
     const status = decision === 'approve' ? 'ready' : 'rejected'
-    const [row] = await tx.update(schema.runs).set({ status, updatedAt: new Date() }).where(eq(schema.runs.id, id)).returning()
-    await audit(tx, event, {
+    const [row] = await tx.update(schema.runs).set({ status, statusReason: null, updatedAt: new Date() }).where(eq(schema.runs.id, id)).returning()
+    await audit(tx, signer, {
       action: decision === 'approve' ? 'run.approve' : 'run.reject', entity: 'run', entityId: id,
-      oldValues: { status: run.status }, newValues: { status, signature: { id: sig!.id, meaning: sig!.meaning, signedAt: sig!.signedAt, boundHash: sig!.boundHash } },
+      oldValues: { status: run.status }, newValues: { status, signature: { id: sig.id, meaning: sig.meaning, signedAt: sig.signedAt, boundHash: sig.boundHash } },
       reason: input.reason,
     })
     const [planner] = await tx.select({ email: schema.users.email, active: schema.users.active }).from(schema.users).where(eq(schema.users.id, run.plannedBy))
@@ -55,17 +87,26 @@ export async function signRun(event: H3Event, decision: Decision) {
         to: [planner.email],
         subject: `Run ${run.sampleCode} ${decision === 'approve' ? 'approved — ready to fire' : 'rejected'}`,
         text: `${user.name} ${MEANING[decision]} run #${run.seq} (${run.sampleCode}) in plan "${plan?.name ?? ''}".\nReason: ${input.reason}\n\n${decision === 'approve' ? 'The run is ready to fire.' : 'Change the charge and submit again, or withdraw the run.'}`,
-        dedupeKey: `run-decision:${sig!.id}`,
+        dedupeKey: `run-decision:${sig.id}`,
       })
     }
     const sigs = await signaturesFor(tx, [id])
     return { changed: false as const, run: runView(row!, sigs.get(id)) }
   })
   if (outcome.changed) {
-    throw createError({ statusCode: 409, message: `The assessment of this run changed since it was submitted (now: ${outcome.status}). Review it again.` })
+    throw new Refusal('conflict', `The assessment of this run changed since it was submitted (now: ${outcome.status}). Review it again.`, { reason: 'reassessed', status: outcome.status })
   }
-  // A fresh session after a signature (issue 7: sessions renewed at signature).
-  const session = await getUserSession(event)
-  await replaceUserSession(event, { user: session.user, epoch: session.epoch, loggedInAt: session.loggedInAt, lastSeenAt: Date.now() })
   return outcome.run
+}
+
+/** POST /api/runs/:id/approve and /reject: supervisor, signed with the password, never by anyone who handled the run. */
+export function runDecisionHandler(decision: Decision) {
+  return defineEventHandler(async (event) => {
+    const user = await requireRole(event, 'supervisor')
+    const { id } = parseParams(event, idParam)
+    const input = await parseBody(event, signatureSchema)
+    const current = await findRunOr404(useDb(), id)
+    return signWithPassword(event, user, { entity: 'run', entityId: id, password: input.password, conflict: runDutyConflict(current, user.id) },
+      signer => signRun(signer, decision, id, input))
+  })
 }

@@ -32,7 +32,6 @@ export interface LabPolicy {
   decompositionOnsetLimitC: number
   volatileBoilingPointC: number
   halogenSharePct: number
-  minSampleMassG: number
   weakSampleMinHeatReleaseJ: number
   aidHeatingValueJPerG: number
   sampleDensityGPerMl: number
@@ -43,6 +42,8 @@ export interface LabPolicy {
   standardisationRuns: number
   standardisationMaxRsdPct: number
   checkRunTolerancePct: number
+  signedMassTolerancePct: number
+  minSampleMassG: number
   electrodeResistanceMaxOhm: number
   uploadMaxBytes: number
   sessionIdleMinutes: number
@@ -74,7 +75,6 @@ export const DEFAULT_POLICY: LabPolicy = {
   decompositionOnsetLimitC: 500,
   volatileBoilingPointC: 100,
   halogenSharePct: 2,
-  minSampleMassG: 0.01,
   weakSampleMinHeatReleaseJ: 10000,
   aidHeatingValueJPerG: 26454,
   sampleDensityGPerMl: 1,
@@ -85,6 +85,8 @@ export const DEFAULT_POLICY: LabPolicy = {
   standardisationRuns: 5,
   standardisationMaxRsdPct: 0.2,
   checkRunTolerancePct: 0.3,
+  signedMassTolerancePct: 2,
+  minSampleMassG: 0.010,
   electrodeResistanceMaxOhm: 5,
   uploadMaxBytes: 10485760,
   sessionIdleMinutes: 60,
@@ -124,7 +126,6 @@ export const labPolicySchema = z
     decompositionOnsetLimitC: z.number().min(0).max(1000),
     volatileBoilingPointC: z.number().min(-50).max(400),
     halogenSharePct: z.number().min(0).max(100),
-    minSampleMassG: z.number().min(0.001).max(10),
     weakSampleMinHeatReleaseJ: nonNegative().max(200000),
     aidHeatingValueJPerG: positive().max(150000),
     sampleDensityGPerMl: z.number().min(0.1).max(25),
@@ -135,6 +136,8 @@ export const labPolicySchema = z
     standardisationRuns: count().max(50),
     standardisationMaxRsdPct: positive().max(10),
     checkRunTolerancePct: positive().max(10),
+    signedMassTolerancePct: nonNegative().max(20),
+    minSampleMassG: positive().max(10),
     electrodeResistanceMaxOhm: positive().max(1000),
     uploadMaxBytes: count().max(1073741824),
     sessionIdleMinutes: count().max(1440),
@@ -190,7 +193,6 @@ export const POLICY_DESCRIPTIONS: Readonly<Record<keyof LabPolicy, PolicyDescrip
   decompositionOnsetLimitC: { label: 'Decomposition onset must be below', unit: '°C', source: 'UN Manual of Tests and Criteria, Appendix 6' },
   volatileBoilingPointC: { label: 'Volatile sample: boiling point below', unit: '°C', source: 'lab decision (sealed capsule or tape needed)' },
   halogenSharePct: { label: 'Halogen-resistant vessel needed above this chlorine share', unit: '% of the sample mass', source: 'lab decision (hydrochloric acid attacks the vessel)' },
-  minSampleMassG: { label: 'Smallest sample mass fired', unit: 'g', source: 'lab decision (balance resolution and a meaningful heat release)' },
   weakSampleMinHeatReleaseJ: { label: 'Suggest a combustion aid below this heat release', unit: 'J', source: 'common practice' },
   aidHeatingValueJPerG: { label: 'Combustion aid (benzoic acid) heating value', unit: 'J/g', source: 'NIST SRM 39j certificate (weighed in air)' },
   sampleDensityGPerMl: { label: 'Sample density assumed for the free volume', unit: 'g/mL', source: 'common practice' },
@@ -201,6 +203,8 @@ export const POLICY_DESCRIPTIONS: Readonly<Record<keyof LabPolicy, PolicyDescrip
   standardisationRuns: { label: 'Standardisation runs per series', unit: 'runs', source: 'ISO 1928: five runs (from memory); ASTM D240: at least six' },
   standardisationMaxRsdPct: { label: 'Standardisation series relative standard deviation limit', unit: '%', source: 'ISO 1928 (from memory)' },
   checkRunTolerancePct: { label: 'Check run agreement with the certified value', unit: '%', source: 'common practice' },
+  signedMassTolerancePct: { label: 'A signature covers a weighed sample mass up to this much above the signed mass', unit: '%', source: 'common practice' },
+  minSampleMassG: { label: 'Smallest sample mass accepted', unit: 'g', source: 'common practice (about 10 mg; below it the balance uncertainty dominates)' },
   electrodeResistanceMaxOhm: { label: 'Electrode resistance limit after service', unit: 'Ω', source: 'common practice' },
   uploadMaxBytes: { label: 'Largest data file accepted', unit: 'bytes', source: 'common practice' },
   sessionIdleMinutes: { label: 'Sign out after idle', unit: 'minutes', source: 'common practice' },

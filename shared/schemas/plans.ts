@@ -49,6 +49,12 @@ export const runInputSchema = z.object({
 }).strict()
 export type RunInput = z.infer<typeof runInputSchema>
 
+// A change to a run: every field optional and none defaulted, so that what is left out stays as it was.
+export const runPatchSchema = runInputSchema.extend({
+  kind: z.enum(RUN_KINDS).optional(),
+  note: z.string().trim().max(2000).optional(),
+}).partial()
+
 export const signatureSchema = z.object({
   password: z.string().min(1, 'your password signs this').max(1024),
   reason: z.string().trim().min(3, 'say why').max(2000),

@@ -7,7 +7,7 @@ import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
 import { as, call, DEMO_PASSWORD } from '../support/api'
 import { testDb } from '../support/db'
-import { addRun, newPlan, newVessel, sampleRun } from '../support/factories'
+import { addRun, benzoicAcidMaterialId, newPlan, newVessel, sampleRun } from '../support/factories'
 
 const root = fileURLToPath(new URL('../..', import.meta.url))
 
@@ -22,8 +22,13 @@ async function fireRuns(vesselId: string, n: number, kind: 'sample' | 'check' = 
   const plan = await newPlan(vesselId)
   const runs = []
   // 0.8 g at 26,454 J/g ≈ 21 kJ: well inside a 33 kJ rating (NIST SRM 39j certificate value, weighed in air).
+  // A check run burns the library's reference standard (the certified benzoic acid).
+  const ba = kind === 'check' ? await benzoicAcidMaterialId() : undefined
   for (let i = 0; i < n; i++) {
-    const res = await addRun(plan.id, sampleRun(0.8, 26454, { kind }))
+    const body = ba
+      ? { ...sampleRun(0.8), kind, components: [{ role: 'sample', materialId: ba, massG: 0.8 }, { role: 'fuse', wire: 'nichrome', lengthCm: 10 }] }
+      : sampleRun(0.8, 26454, { kind })
+    const res = await addRun(plan.id, body)
     expect(res.status, JSON.stringify(res.body)).toBe(201)
     runs.push(res.body)
   }

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { as, call, DEMO_PASSWORD, unique } from '../support/api'
 import { auditRows, testDb } from '../support/db'
+import { benzoicAcidMaterialId } from '../support/factories'
 
 // Intervals and margin are the lab policy defaults of DESIGN.md §2: routine service every 500 firings or 182 days
 // (six months), requalification after 5,000 firings, "due" within 10 % of an interval — common practice
@@ -345,7 +346,9 @@ describe('a check run returns a serviced vessel to service', () => {
     expect(serviced.body.vessel.state).toBe('awaiting-verification')
     const analyst = await as('analyst')
     const plan = (await call('POST', '/api/plans', { cookie: analyst, body: { name: unique('Verify'), vesselId: v.id, fillPressureMPa: 3.0 } })).body
-    const charge = (kind: string) => ({ sampleCode: unique(kind.slice(0, 3).toUpperCase()), kind, components: [{ role: 'sample', massG: 1.0, heatingValueJPerG: BA, smiles: 'OC(=O)c1ccccc1' }, { role: 'fuse', wire: 'platinum', lengthCm: 10 }] })
+    const ba = await benzoicAcidMaterialId()
+    // Standardisation and check runs burn the library's reference standard; a sample run here is any sample at the same value.
+    const charge = (kind: string) => ({ sampleCode: unique(kind.slice(0, 3).toUpperCase()), kind, components: [kind === 'sample' ? { role: 'sample', massG: 1.0, heatingValueJPerG: BA, smiles: 'OC(=O)c1ccccc1' } : { role: 'sample', massG: 1.0, materialId: ba }, { role: 'fuse', wire: 'platinum', lengthCm: 10 }] })
     const sample = await call('POST', `/api/plans/${plan.id}/runs`, { cookie: analyst, body: charge('sample') })
     expect(sample.body.assessment.verdict).toBe('blocked')
     await call('POST', `/api/runs/${sample.body.id}/withdraw`, { cookie: analyst, body: {} })

@@ -2,6 +2,7 @@ import { deflateSync } from 'node:zlib'
 import { describe, expect, it } from 'vitest'
 import { as, call, DEMO_PASSWORD, unique } from '../support/api'
 import { openPage, shot, signInAs } from '../support/browser'
+import { benzoicAcidMaterialId } from '../support/factories'
 
 // A real, small PNG drawn here (PNG specification, ISO/IEC 15948: signature, IHDR, zlib IDAT, IEND, CRC-32 per chunk).
 function crc32(buf: Buffer) {
@@ -90,7 +91,9 @@ describe('vessel care in Chromium', () => {
     // benzoic acid's 26,454 J/g (NIST SRM 39j, weighed in air) within the policy's 0.3 % (common practice).
     const analyst = await as('analyst')
     const plan = (await call('POST', '/api/plans', { cookie: analyst, body: { name: unique('Verify'), vesselId: id, fillPressureMPa: 3.0 } })).body
-    const charge = (kind: string) => ({ sampleCode: unique(kind.slice(0, 3).toUpperCase()), kind, components: [{ role: 'sample', massG: 1.0, heatingValueJPerG: 26454, smiles: 'OC(=O)c1ccccc1' }, { role: 'fuse', wire: 'platinum', lengthCm: 10 }] })
+    const ba = await benzoicAcidMaterialId()
+    // Standardisation and check runs burn the library's reference standard; a sample run here is any sample at the same value.
+    const charge = (kind: string) => ({ sampleCode: unique(kind.slice(0, 3).toUpperCase()), kind, components: [kind === 'sample' ? { role: 'sample', massG: 1.0, heatingValueJPerG: 26454, smiles: 'OC(=O)c1ccccc1' } : { role: 'sample', massG: 1.0, materialId: ba }, { role: 'fuse', wire: 'platinum', lengthCm: 10 }] })
     const runs = []
     for (let i = 0; i < 5; i++) runs.push((await call('POST', `/api/plans/${plan.id}/runs`, { cookie: analyst, body: charge('standardisation') })).body)
     const check = (await call('POST', `/api/plans/${plan.id}/runs`, { cookie: analyst, body: charge('check') })).body

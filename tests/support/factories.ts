@@ -42,3 +42,8 @@ export function sampleRun(massG: number, heatingValueJPerG = 26454, extra: Recor
 export async function addRun(planId: string, body: Record<string, unknown>, cookie?: string) {
   return call('POST', `/api/plans/${planId}/runs`, { cookie: cookie ?? await as('analyst'), body })
 }
+
+/** The library's certified benzoic acid: the reference standard that standardisation and check runs burn. */
+export async function benzoicAcidMaterialId(): Promise<string> {
+  return (await material('Benzoic acid, calorimetric standard')).id
+}

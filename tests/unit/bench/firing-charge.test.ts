@@ -1,10 +1,9 @@
 import { describe, expect, it } from 'vitest'
-import { newFindings, weighedCharge } from '../../../server/utils/firing'
-import type { Assessment } from '../../../shared/domain/assessment'
+import { weighedCharge } from '../../../server/utils/firing'
 import { analyseThermogram } from '../../../shared/domain/results'
 import { synthesiseThermogram } from './synthetic-thermogram'
 
-// The weighed charge replaces the planned masses before the re-assessment at firing (issue 5).
+// The weighed charge replaces the planned masses before the re-assessment at firing.
 describe('weighedCharge', () => {
   it('puts the weighed mass on a single sample and says what changed', () => {
     const out = weighedCharge([{ role: 'sample', massG: 1 }, { role: 'fuse', wire: 'nichrome', lengthCm: 10 }], { outcome: 'complete', weighedMassG: 1.0123, observations: '' })
@@ -21,17 +20,6 @@ describe('weighedCharge', () => {
 
   it('reports nothing when the charge was weighed as planned', () => {
     expect(weighedCharge([{ role: 'sample', massG: 1 }], { outcome: 'complete', weighedMassG: 1, observations: '' }).changes).toEqual([])
-  })
-})
-
-describe('newFindings', () => {
-  const a = (findings: Pick<Assessment['findings'][number], 'code' | 'severity'>[]) => ({ findings: findings.map(f => ({ ...f, message: f.code })) }) as unknown as Assessment
-  it('treats a finding already signed (same code) as known, a new code as new', () => {
-    const before = a([{ code: 'energy-near-rating', severity: 'approval' }])
-    const after = a([{ code: 'energy-near-rating', severity: 'approval' }, { code: 'oxygen-low', severity: 'approval' }, { code: 'energy-over-rating', severity: 'block' }])
-    const fresh = newFindings(before, after)
-    expect(fresh.approvals.map(f => f.code)).toEqual(['oxygen-low'])
-    expect(fresh.blocks.map(f => f.code)).toEqual(['energy-over-rating'])
   })
 })
 

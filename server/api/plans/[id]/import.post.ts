@@ -1,4 +1,4 @@
-import { eq, max } from 'drizzle-orm'
+import { eq } from 'drizzle-orm'
 import { z } from 'zod'
 import { parsePlanImport } from '#shared/plan-import'
 
@@ -42,21 +42,18 @@ export default defineEventHandler(async (event) => {
   }
 
   const created = await db.transaction(async (tx) => {
-    await findPlanOr404(tx, id, true)
-    const [last] = await tx.select({ seq: max(schema.runs.seq) }).from(schema.runs).where(eq(schema.runs.planId, id))
-    let seq = last?.seq ?? 0
-    const ids: string[] = []
+    const values: NewRun[] = []
     for (const r of rows) {
       const input = r.input!
       const vessel = input.vesselName ? vesselsByName.get(input.vesselName)! : planVessel
       const fillPressureMPa = input.fillPressureMPa ?? plan.fillPressureMPa
       const { assessment, chargeHash } = await assessRun(tx, { vessel, fillPressureMPa, components: input.components, kind: input.kind }, policy)
-      const [row] = await tx.insert(schema.runs).values({
-        planId: id, seq: ++seq, sampleCode: input.sampleCode, kind: input.kind, vesselId: vessel.id, fillPressureMPa,
+      values.push({
+        sampleCode: input.sampleCode, kind: input.kind, vesselId: vessel.id, fillPressureMPa,
         components: input.components, assessment, verdict: assessment.verdict, chargeHash, status: 'draft', note: input.note, plannedBy: user.id,
-      }).returning({ id: schema.runs.id })
-      ids.push(row!.id)
+      })
     }
+    const ids = (await insertNumberedRuns(tx, id, values)).map(r => r.id)
     await audit(tx, event, { action: 'plan.import', entity: 'plan', entityId: id, newValues: { runs: ids.length, runIds: ids } })
     return ids
   })

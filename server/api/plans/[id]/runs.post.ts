@@ -1,4 +1,3 @@
-import { eq, max } from 'drizzle-orm'
 import { runInputSchema } from '#shared/schemas/plans'
 
 // Adds a run to a plan; the server assesses it against its vessel as it stands and stores the assessment.
@@ -13,11 +12,10 @@ export default defineEventHandler(async (event) => {
     const vessel = vesselView(await findVesselOr404(tx, vesselId), policy)
     const fillPressureMPa = input.fillPressureMPa ?? plan.fillPressureMPa
     const { assessment, chargeHash } = await assessRun(tx, { vessel, fillPressureMPa, components: input.components, kind: input.kind }, policy)
-    const [last] = await tx.select({ seq: max(schema.runs.seq) }).from(schema.runs).where(eq(schema.runs.planId, id))
-    const [row] = await tx.insert(schema.runs).values({
-      planId: id, seq: (last?.seq ?? 0) + 1, sampleCode: input.sampleCode, kind: input.kind, vesselId, fillPressureMPa,
+    const [row] = await insertNumberedRuns(tx, id, [{
+      sampleCode: input.sampleCode, kind: input.kind, vesselId, fillPressureMPa,
       components: input.components, assessment, verdict: assessment.verdict, chargeHash, status: 'draft', note: input.note, plannedBy: user.id,
-    }).returning()
+    }])
     await audit(tx, event, { action: 'run.create', entity: 'run', entityId: row!.id, newValues: { ...row!, assessment: undefined, verdict: assessment.verdict } })
     return row!
   })

@@ -1,7 +1,8 @@
-import { and, asc, eq } from 'drizzle-orm'
+import { and, asc, eq, inArray } from 'drizzle-orm'
 import { RUN_STATUS_LABELS } from '#shared/labels'
-
+import { RUN_TRANSITIONS, withHandler } from '#shared/domain/run-lifecycle'
 import type { RunInput } from '#shared/schemas/plans'
+
 // Submitting re-assesses every draft run against its vessel as it stands now and routes it by verdict:
 // clear → ready, needs approval → awaiting a supervisor's signature, blocked → only edit or withdraw.
 export default defineEventHandler(async (event) => {
@@ -10,7 +11,7 @@ export default defineEventHandler(async (event) => {
   const policy = await getPolicy()
   const result = await useDb().transaction(async (tx) => {
     const plan = await findPlanOr404(tx, id, true)
-    const drafts = await tx.select().from(schema.runs).where(and(eq(schema.runs.planId, id), eq(schema.runs.status, 'draft'))).orderBy(asc(schema.runs.seq)).for('update')
+    const drafts = await tx.select().from(schema.runs).where(and(eq(schema.runs.planId, id), inArray(schema.runs.status, [...RUN_TRANSITIONS.submit.from]))).orderBy(asc(schema.runs.seq)).for('update')
     if (!drafts.length) throw createError({ statusCode: 409, message: 'There is no draft run in this plan to submit.' })
     const missingMass = drafts.filter(r => !(r.components as RunInput['components']).some(c => c.role === 'sample' && (c.massG ?? 0) > 0))
     if (missingMass.length) {
@@ -22,7 +23,7 @@ export default defineEventHandler(async (event) => {
       const vessel = vesselView(await findVesselOr404(tx, r.vesselId), policy, now)
       const { assessment, chargeHash } = await assessRun(tx, { vessel, fillPressureMPa: r.fillPressureMPa, components: r.components as RunInput['components'], kind: r.kind }, policy)
       const status = statusForVerdict(assessment.verdict)
-      await tx.update(schema.runs).set({ assessment, verdict: assessment.verdict, chargeHash, status, updatedAt: now }).where(eq(schema.runs.id, r.id))
+      await tx.update(schema.runs).set({ assessment, verdict: assessment.verdict, chargeHash, status, statusReason: null, submittedBy: withHandler(r.submittedBy, user.id), updatedAt: now }).where(eq(schema.runs.id, r.id))
       await audit(tx, event, { action: 'run.submit', entity: 'run', entityId: r.id, oldValues: { status: 'draft' }, newValues: { status, verdict: assessment.verdict, findings: assessment.findings.map(f => f.code) } })
       moved.push({ id: r.id, seq: r.seq, sampleCode: r.sampleCode, status })
     }
@@ -31,7 +32,7 @@ export default defineEventHandler(async (event) => {
     await audit(tx, event, { action: 'plan.submit', entity: 'plan', entityId: id, newValues: counts })
     const waiting = moved.filter(r => r.status === 'awaiting-approval')
     if (waiting.length) {
-      // One message per submitted plan, not per run (issue 4).
+      // One message per submitted plan, not per run.
       const to = await recipientsWithRole(tx, 'supervisor')
       if (to.length) {
         await enqueueMail(tx, {

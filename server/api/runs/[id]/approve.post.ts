@@ -1,2 +1,2 @@
 // Approve an exception: run → ready; the signature stays with the run.
-export default defineEventHandler(event => signRun(event, 'approve'))
+export default runDecisionHandler('approve')

@@ -1,4 +1,3 @@
-import { eq, max } from 'drizzle-orm'
 import type { RunInput } from '#shared/schemas/plans'
 
 // A duplicate determination: the same sample and charge as a new run at the end of the plan, re-assessed now.
@@ -12,11 +11,10 @@ export default defineEventHandler(async (event) => {
     const vessel = vesselView(await findVesselOr404(tx, src.vesselId), policy)
     const components = src.components as RunInput['components']
     const { assessment, chargeHash } = await assessRun(tx, { vessel, fillPressureMPa: src.fillPressureMPa, components, kind: src.kind }, policy)
-    const [last] = await tx.select({ seq: max(schema.runs.seq) }).from(schema.runs).where(eq(schema.runs.planId, src.planId))
-    const [row] = await tx.insert(schema.runs).values({
-      planId: src.planId, seq: (last?.seq ?? 0) + 1, sampleCode: src.sampleCode, kind: src.kind, vesselId: src.vesselId, fillPressureMPa: src.fillPressureMPa,
+    const [row] = await insertNumberedRuns(tx, src.planId, [{
+      sampleCode: src.sampleCode, kind: src.kind, vesselId: src.vesselId, fillPressureMPa: src.fillPressureMPa,
       components, assessment, verdict: assessment.verdict, chargeHash, status: 'draft', note: src.note, plannedBy: user.id,
-    }).returning()
+    }])
     await audit(tx, event, { action: 'run.duplicate', entity: 'run', entityId: row!.id, newValues: { ...row!, assessment: undefined, duplicateOf: id } })
     return row!
   })

@@ -1,2 +1,2 @@
 // Reject an exception: run → rejected.
-export default defineEventHandler(event => signRun(event, 'reject'))
+export default runDecisionHandler('reject')

@@ -1,5 +1,6 @@
 import { eq } from 'drizzle-orm'
 import { z } from 'zod'
+import { runActRefusal } from '#shared/domain/run-lifecycle'
 
 const body = z.object({ reason: z.string().trim().max(1000).default('') }).strict()
 
@@ -10,8 +11,9 @@ export default defineEventHandler(async (event) => {
   const { reason } = await parseBody(event, body)
   const run = await useDb().transaction(async (tx) => {
     const before = await findRunOr404(tx, id, true)
-    if (before.status === 'fired' || before.status === 'withdrawn') throw createError({ statusCode: 409, message: `A ${before.status} run cannot be withdrawn.` })
-    const [row] = await tx.update(schema.runs).set({ status: 'withdrawn', updatedAt: new Date() }).where(eq(schema.runs.id, id)).returning()
+    const refusal = runActRefusal('withdraw', before.status, before.sampleCode)
+    if (refusal) throw createError({ statusCode: 409, message: refusal, data: { reason: 'run-status', status: before.status } })
+    const [row] = await tx.update(schema.runs).set({ status: 'withdrawn', statusReason: null, updatedAt: new Date() }).where(eq(schema.runs.id, id)).returning()
     await audit(tx, event, { action: 'run.withdraw', entity: 'run', entityId: id, oldValues: { status: before.status }, newValues: { status: 'withdrawn' }, reason })
     return row!
   })

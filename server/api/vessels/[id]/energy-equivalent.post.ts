@@ -1,5 +1,6 @@
 import { and, eq, inArray } from 'drizzle-orm'
 import { mean, seriesStatistics } from '#shared/domain/results'
+import { dutyConflict } from '#shared/domain/run-lifecycle'
 
 // A supervisor accepts a standardisation series (signed): its mean ε becomes the vessel's active energy equivalent.
 export default defineEventHandler(async (event) => {
@@ -8,9 +9,8 @@ export default defineEventHandler(async (event) => {
   const input = await parseBody(event, acceptSeriesSchema)
   const db = useDb()
   await findVesselOr404(db, id)
-  await verifySigner(event, user.id, input.password, 'vessel', id)
   const policy = await getPolicy()
-  const accepted = await db.transaction(async (tx) => {
+  const accepted = await signWithPassword(event, user, { entity: 'vessel', entityId: id, password: input.password }, signer => db.transaction(async (tx) => {
     const vessel = await findVesselOr404(tx, id, true)
     const rows = await tx.select().from(schema.results).where(inArray(schema.results.id, input.resultIds)).for('update')
     const byId = new Map(rows.map(r => [r.id, r]))
@@ -24,32 +24,27 @@ export default defineEventHandler(async (event) => {
     })
     if (problems.length) invalidInput(problems)
     const firings = await tx.select({ firedBy: schema.firings.firedBy }).from(schema.firings).where(inArray(schema.firings.id, rows.map(r => r.firingId)))
-    if (firings.some(f => f.firedBy === user.id) || rows.some(r => r.createdBy === user.id)) {
-      throw createError({ statusCode: 403, message: 'You fired or entered runs of this series: another supervisor must accept it (separation of duties).' })
-    }
+    const conflict = dutyConflict(user.id, 'runs of this series', { fired: firings.map(f => f.firedBy), entered: rows.map(r => r.createdBy) })
+    if (conflict) throw new Refusal('forbidden', conflict, { reason: 'separation-of-duties' })
     const earlier = await tx.select({ resultIds: schema.energyEquivalents.resultIds, acceptedAt: schema.energyEquivalents.acceptedAt }).from(schema.energyEquivalents).where(eq(schema.energyEquivalents.vesselId, id))
     const reused = rows.filter(r => earlier.some(e => (e.resultIds as string[]).includes(r.id)))
-    if (reused.length) throw createError({ statusCode: 409, message: `Already part of an accepted series: ${reused.map(r => r.sampleCode).join(', ')}. A series is made of new standardisation runs.` })
+    if (reused.length) throw new Refusal('conflict', `Already part of an accepted series: ${reused.map(r => r.sampleCode).join(', ')}. A series is made of new standardisation runs.`)
     const values = rows.map(r => (r.values as ResultValues).energyEquivalentJPerK!)
     const stats = seriesStatistics(values, seriesPolicy(policy))
-    if (!stats.accepted) throw createError({ statusCode: 409, message: `The series cannot be accepted: ${stats.reason}`, data: { statistics: stats } })
+    if (!stats.accepted) throw new Refusal('conflict', `The series cannot be accepted: ${stats.reason}`, { statistics: stats })
     await tx.update(schema.energyEquivalents).set({ active: false }).where(and(eq(schema.energyEquivalents.vesselId, id), eq(schema.energyEquivalents.active, true)))
     const [row] = await tx.insert(schema.energyEquivalents).values({
       vesselId: id, valueJPerK: stats.mean!, standardDeviationJPerK: stats.standardDeviation!, relativeStandardDeviationPct: stats.relativeStandardDeviationPct!,
       runs: stats.n, resultIds: input.resultIds, meanEnergyJ: mean(rows.map(r => (r.values as ResultValues).energyReleasedJ ?? 0)), acceptedBy: user.id, active: true,
     }).returning()
-    const [sig] = await tx.insert(schema.signatures).values({
-      entity: 'energy-equivalent', entityId: row!.id, signerId: user.id, signerName: user.name, meaning: 'standardisation series accepted', reason: input.reason, boundHash: seriesHash(rows),
-    }).returning()
-    await audit(tx, event, {
+    const sig = await signer.sign(tx, { entity: 'energy-equivalent', entityId: row!.id, meaning: 'standardisation series accepted', reason: input.reason, boundHash: seriesHash(rows) })
+    await audit(tx, signer, {
       action: 'energy-equivalent.accept', entity: 'vessel', entityId: id,
-      newValues: { energyEquivalentId: row!.id, vessel: vessel.name, valueJPerK: stats.mean, standardDeviationJPerK: stats.standardDeviation, relativeStandardDeviationPct: stats.relativeStandardDeviationPct, runs: stats.n, resultIds: input.resultIds, signatureId: sig!.id },
+      newValues: { energyEquivalentId: row!.id, vessel: vessel.name, valueJPerK: stats.mean, standardDeviationJPerK: stats.standardDeviation, relativeStandardDeviationPct: stats.relativeStandardDeviationPct, runs: stats.n, resultIds: input.resultIds, signatureId: sig.id },
       reason: input.reason,
     })
     return { energyEquivalent: energyEquivalentView(row!, user.name), statistics: stats }
-  })
-  const session = await getUserSession(event)
-  await replaceUserSession(event, { user: session.user, epoch: session.epoch, loggedInAt: session.loggedInAt, lastSeenAt: Date.now() })
+  }))
   setResponseStatus(event, 201)
   return accepted
 })

@@ -1,3 +1,5 @@
+import { serviceInputSchema } from '#shared/schemas/services'
+
 // A servicing record (technician): signed by re-entering the password, audited, and applied to the
 // vessel in the same transaction (counters, dates, condition). Files are uploaded first and named by id.
 export default defineEventHandler(async (event) => {
@@ -6,11 +8,7 @@ export default defineEventHandler(async (event) => {
   const input = await parseBody(event, serviceInputSchema)
   // The checklist rules come before the password: a refused record needs no signature.
   checkServiceRules(input, await findVesselOr404(useDb(), id), new Date(), !!input.correctsId)
-  await verifySigner(event, user.id, input.password, 'vessel', id)
-  const result = await recordService(event, user, id, input)
-  // A fresh session after a signature, as for approvals.
-  const session = await getUserSession(event)
-  await replaceUserSession(event, { user: session.user, epoch: session.epoch, loggedInAt: session.loggedInAt, lastSeenAt: Date.now() })
+  const result = await signWithPassword(event, user, { entity: 'vessel', entityId: id, password: input.password }, signer => recordService(signer, id, input))
   setResponseStatus(event, 201)
   return result
 })

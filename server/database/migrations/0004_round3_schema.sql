@@ -1,3 +1,4 @@
+DROP INDEX "runs_plan_idx";--> statement-breakpoint
 ALTER TABLE "materials" ADD COLUMN "decomposition_onset_c" double precision;--> statement-breakpoint
 ALTER TABLE "materials" ADD COLUMN "decomposition_method" text;--> statement-breakpoint
 ALTER TABLE "materials" ADD COLUMN "decomposition_evidence" text;--> statement-breakpoint
@@ -8,6 +9,10 @@ ALTER TABLE "materials" ADD COLUMN "identity_recorded_at" timestamp with time zo
 ALTER TABLE "materials" ADD COLUMN "boiling_point_c" double precision;--> statement-breakpoint
 ALTER TABLE "materials" ADD COLUMN "vapour_pressure_kpa" double precision;--> statement-breakpoint
 ALTER TABLE "materials" ADD COLUMN "chlorine_pct" double precision;--> statement-breakpoint
+ALTER TABLE "runs" ADD COLUMN "edited_by" uuid[] DEFAULT '{}'::uuid[] NOT NULL;--> statement-breakpoint
+ALTER TABLE "runs" ADD COLUMN "submitted_by" uuid[] DEFAULT '{}'::uuid[] NOT NULL;--> statement-breakpoint
+ALTER TABLE "runs" ADD COLUMN "status_reason" text;--> statement-breakpoint
 ALTER TABLE "vessels" ADD COLUMN "halogen_resistant" boolean DEFAULT false NOT NULL;--> statement-breakpoint
 ALTER TABLE "materials" ADD CONSTRAINT "materials_decomposition_recorded_by_users_id_fk" FOREIGN KEY ("decomposition_recorded_by") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
-ALTER TABLE "materials" ADD CONSTRAINT "materials_identity_recorded_by_users_id_fk" FOREIGN KEY ("identity_recorded_by") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;
+ALTER TABLE "materials" ADD CONSTRAINT "materials_identity_recorded_by_users_id_fk" FOREIGN KEY ("identity_recorded_by") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+CREATE UNIQUE INDEX "runs_plan_seq_unique" ON "runs" USING btree ("plan_id","seq");
