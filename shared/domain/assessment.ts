@@ -721,6 +721,14 @@ function reduceSampleTo(model: ChargeModel, limit: number): string {
   return `reduce the sample to ≤ ${grams(floor2(limit))}`
 }
 
+/** A fill advice inside the method window (never the arithmetic edge below it): the window's lower end, or the fill needed when higher. */
+function fillInWindow(need: number, vesselMaxMPa: number, policy: LabPolicy): string {
+  const low = policy.fillPressureWindowMinMPa
+  const high = Math.min(policy.fillPressureWindowMaxMPa, vesselMaxMPa)
+  if (need > high) return `raise the fill to ≥ ${mpa(need)} gauge (above the method window ${low.toFixed(2)}–${mpa(policy.fillPressureWindowMaxMPa)} gauge: a supervisor must approve)`
+  return `fill to ${mpa(Math.max(need, low))} gauge or more, within the method window ${low.toFixed(2)}–${mpa(high)} gauge,`
+}
+
 const STATE_BLOCKS: Partial<Record<VesselState, { code: FindingCode; what: string }>> = {
   'overdue': { code: 'vessel-overdue', what: 'is overdue for routine service: record the service (all seals renewed, leak test, electrode check) before firing' },
   'requalification-due': { code: 'vessel-requalification-due', what: 'is due for requalification: send it away and record the requalification before firing' },
@@ -858,14 +866,14 @@ export function assessCharge(input: ChargeInput, policy: LabPolicy): Assessment 
     const need = fillFor(policy.minOxygenExcess) ?? 0
     const limit = oxygenLimit(model, policy.minOxygenExcess)
     const raise = need <= v.maxFillPressureMPa
-      ? `raise the fill to ≥ ${mpa(need)} gauge (maximum ${mpa(v.maxFillPressureMPa)} gauge) or ${reduceSampleTo(model, limit)}`
+      ? `${fillInWindow(need, v.maxFillPressureMPa, policy)} or ${reduceSampleTo(model, limit)}`
       : `no fill up to the vessel maximum of ${mpa(v.maxFillPressureMPa)} gauge is enough (≥ ${mpa(need)} gauge needed): ${reduceSampleTo(model, limit)}`
     findings.push(finding('oxygen-insufficient', `Oxygen excess ${floor2(excess).toFixed(2)} is below ${policy.minOxygenExcess}: ${raise}.`, { oxygenExcess: excess, fillNeededMPa: need }))
   }
   else if (excess !== null && under(excess, policy.approvalOxygenExcess)) {
     const need = fillFor(policy.approvalOxygenExcess) ?? 0
     const limit = oxygenLimit(model, policy.approvalOxygenExcess)
-    const raise = need <= v.maxFillPressureMPa ? `raise the fill to ≥ ${mpa(need)} gauge or ${reduceSampleTo(model, limit)}` : reduceSampleTo(model, limit)
+    const raise = need <= Math.min(v.maxFillPressureMPa, policy.fillPressureWindowMaxMPa) ? `${fillInWindow(need, v.maxFillPressureMPa, policy)} or ${reduceSampleTo(model, limit)}` : reduceSampleTo(model, limit)
     findings.push(finding('oxygen-low', `Oxygen excess ${floor2(excess).toFixed(2)} is below ${policy.approvalOxygenExcess}: a supervisor must approve, or ${raise}.`, { oxygenExcess: excess, fillNeededMPa: need }))
   }
 
