@@ -174,3 +174,12 @@ export function adviseCharge(input: ChargeInput, policy: LabPolicy, assessment: 
     summary: `${what.charAt(0).toUpperCase()}${what.slice(1)}${then}.`,
   }
 }
+
+/** Notes that propose an amount (a mass, an aid): left out when the screen or the vessel stops the charge. */
+const AMOUNT_NOTES: ReadonlySet<FindingCode> = new Set<FindingCode>(['weak-sample-aid', 'energy-far-from-standard', 'suggested-mass'])
+
+/** The findings to show beside the advice: no amount is proposed for a charge that no amount can make safe. */
+export function findingsBesideAdvice(findings: readonly Finding[], advice: ChargeAdvice | null): Finding[] {
+  const stopped = advice?.kind === 'screen-stops' || advice?.kind === 'vessel-stops'
+  return stopped ? findings.filter(f => !AMOUNT_NOTES.has(f.code)) : [...findings]
+}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { adviseCharge, windowFills } from '#shared/domain/advice'
+import { adviseCharge, findingsBesideAdvice, windowFills } from '#shared/domain/advice'
 import { assessCharge, type ChargeInput, resolveComponents } from '#shared/domain/assessment'
 import { DEFAULT_POLICY } from '#shared/domain/policy'
 import { BENZOIC_ACID_J_PER_G, makeCharge, makeVessel, nichromeFuse, sample } from '../assessment/factories'
@@ -114,5 +114,17 @@ describe('one-step advice', () => {
       expect(advice.verdictAfter).toBe('clear')
       expect(assessCharge(apply(input, advice), policy).verdict).toBe('clear')
     }
+  })
+})
+
+describe('findings beside the advice', () => {
+  it('drops the aid and mass notes of a charge the screen stops', async () => {
+    // A weak energetic sample: 0.3 g TNT-like formula releases little heat, so the assessment also notes an aid.
+    const input = makeCharge(await resolveComponents([sample(0.3, { formula: 'C7H5N3O6', heatingValueJPerG: 15000 }), nichromeFuse()]))
+    const a = assessCharge(input, policy)
+    expect(a.findings.map(f => f.code)).toContain('weak-sample-aid')
+    const shown = findingsBesideAdvice(a.findings, adviseCharge(input, policy, a)).map(f => f.code)
+    expect(shown).not.toContain('weak-sample-aid')
+    expect(shown).toContain('energetic-unclearable-formula')
   })
 })
