@@ -12,6 +12,7 @@ export default defineEventHandler(async (event) => {
     const vesselId = input.vesselId ?? plan.vesselId
     const vessel = vesselView(await findVesselOr404(tx, vesselId), policy)
     const fillPressureMPa = input.fillPressureMPa ?? plan.fillPressureMPa
+    await refuseCheckRunWithoutEnergyEquivalent(tx, input.kind, vessel)
     const { assessment, chargeHash } = await assessRun(tx, { vessel, fillPressureMPa, components: input.components, kind: input.kind }, policy)
     const [last] = await tx.select({ seq: max(schema.runs.seq) }).from(schema.runs).where(eq(schema.runs.planId, id))
     const [row] = await tx.insert(schema.runs).values({

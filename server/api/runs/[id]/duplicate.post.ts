@@ -11,6 +11,7 @@ export default defineEventHandler(async (event) => {
     await findPlanOr404(tx, src.planId, true)
     const vessel = vesselView(await findVesselOr404(tx, src.vesselId), policy)
     const components = src.components as RunInput['components']
+    await refuseCheckRunWithoutEnergyEquivalent(tx, src.kind, vessel)
     const { assessment, chargeHash } = await assessRun(tx, { vessel, fillPressureMPa: src.fillPressureMPa, components, kind: src.kind }, policy)
     const [last] = await tx.select({ seq: max(schema.runs.seq) }).from(schema.runs).where(eq(schema.runs.planId, src.planId))
     const [row] = await tx.insert(schema.runs).values({
