@@ -1,4 +1,5 @@
 // The words the pages use for API and record fields: in 422 messages and on the audit page, never the raw key.
+import { POLICY_DESCRIPTIONS } from './domain/policy'
 
 /** Field key → the label a page shows beside it (units as the pages write them). */
 export const FIELD_LABELS: Readonly<Record<string, string>> = {
@@ -30,6 +31,8 @@ export const FIELD_LABELS: Readonly<Record<string, string>> = {
 export function fieldLabel(key: string): string {
   const known = FIELD_LABELS[key]
   if (known) return known
+  const policy = (POLICY_DESCRIPTIONS as Record<string, { label: string, unit: string } | undefined>)[key]
+  if (policy) return policy.unit && policy.unit !== '—' ? `${policy.label} (${policy.unit})` : policy.label
   const words = key.replace(/([a-z0-9])([A-Z])/g, '$1 $2').replace(/[._-]+/g, ' ').trim().toLowerCase()
   return words.charAt(0).toUpperCase() + words.slice(1)
 }
@@ -42,4 +45,18 @@ export function pathWords(path: string): string {
     const label = fieldLabel(part)
     return i === 0 ? label : label.charAt(0).toLowerCase() + label.slice(1)
   }).join(', ')
+}
+
+/** Kinds of record in the audit trail, as the pages name them. */
+export const ENTITY_LABELS: Readonly<Record<string, string>> = {
+  'run': 'Run', 'vessel': 'Vessel', 'plan': 'Plan', 'user': 'User', 'material': 'Material', 'result': 'Result', 'attachment': 'Attachment',
+  'energy-equivalent': 'Energy equivalent', 'report': 'Report', 'lab-settings': 'Lab settings', 'service': 'Service', 'sample': 'Sample', 'client': 'Client',
+}
+
+/** An audit action in words: `run.approve` → "Run: approve"; `vessel.ratings-change` → "Vessel: ratings change". */
+export function actionWords(action: string): string {
+  const [entity = '', ...rest] = action.split('.')
+  const verb = rest.join(' ').replace(/-/g, ' ')
+  const what = ENTITY_LABELS[entity] ?? fieldLabel(entity)
+  return verb ? `${what}: ${verb}` : what
 }

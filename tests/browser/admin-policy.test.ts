@@ -55,11 +55,13 @@ describe('lab policy, audit trail and mail pages in Chromium', () => {
     await expect(page.getByText('nobody — admins included — can edit or delete an entry').isVisible()).resolves.toBe(true)
     const entry = page.locator('tr', { hasText: reason })
     await entry.waitFor()
-    await expect(entry.textContent()).resolves.toContain('settings.update')
+    // Actions and fields in the words the pages use; the raw key is one click away.
+    await expect(entry.textContent()).resolves.toContain('Settings: update')
     await expect(entry.textContent()).resolves.toContain('Priya Natarajan')
     await entry.getByText(/\d+ changes?/).click()
     const changes = entry.getByTestId('audit-changes')
-    await expect(changes.textContent()).resolves.toMatch(/policy\.fillPressureWindowMaxMPa\s*from\s*3\.2\s*→\s*to\s*3\.3/)
+    await expect(changes.textContent()).resolves.toMatch(/Lab policy, method fill window, upper end \(MPa gauge\)\s*from\s*3\.2\s*→\s*to\s*3\.3/)
+    await expect(entry.getByTestId('audit-raw').textContent()).resolves.toContain('policy.fillPressureWindowMaxMPa')
     // The CSV link carries the filters in force.
     await expect(page.getByTestId('audit-csv').getAttribute('href')).resolves.toBe('/api/audit/export.csv?entity=lab-settings')
     // Filters typed into the bar go to the address and to the CSV link.

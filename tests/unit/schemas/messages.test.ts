@@ -29,3 +29,15 @@ describe('validation messages in the product\'s words', () => {
     expect(fieldLabel('someNewThing')).toBe('Some new thing')
   })
 })
+
+describe('audit words', () => {
+  it('names actions and nested fields as the pages do', async () => {
+    const { actionWords } = await import('#shared/field-labels')
+    expect(actionWords('run.approve')).toBe('Run: approve')
+    expect(actionWords('vessel.ratings-change')).toBe('Vessel: ratings change')
+    expect(pathWords('fillPressureMPa')).toBe('Fill pressure (MPa gauge)')
+    expect(pathWords('policy.fillPressureWindowMaxMPa')).toBe('Lab policy, method fill window, upper end (MPa gauge)')
+    expect(pathWords('service.record.effect.checksPassed')).toBe('Service, record, effect, checks passed')
+    expect(pathWords('signature.boundHash')).toBe('Signature, signed charge fingerprint')
+  })
+})
