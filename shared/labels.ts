@@ -26,3 +26,10 @@ export const VESSEL_CLASS_LABELS: Record<string, string> = {
   'standard': 'Standard',
   'high-strength': 'High-strength',
 }
+
+/** What a vessel's state allows, in one wording for the pages and the e-mails; null when every run may be fired. */
+export function vesselFiringWords(v: { blocksAllFirings: boolean, blocksSampleRuns: boolean }): string | null {
+  if (v.blocksAllFirings) return 'No run may be fired in this vessel'
+  if (v.blocksSampleRuns) return 'Only standardisation and check runs may be fired in this vessel'
+  return null
+}

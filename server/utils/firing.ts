@@ -212,7 +212,7 @@ export async function recordFiring(event: H3Event) {
             '',
             ...fresh.approvals.map(f => `  • ${f.message}`),
             '',
-            'The run is back in Approvals. It may be fired only after you sign the exception.',
+            `The run is back in Approvals (${siteLink('/approvals')}). It may be fired only after you sign the exception.`,
           ].join('\n'),
           dedupeKey: `run-reapproval:${id}:${chargeHash}`,
         })
@@ -297,6 +297,7 @@ export async function recordFiring(event: H3Event) {
             '',
             `Emberline has locked the vessel out: no run can be fired in it until it has been requalified and returned to service.`,
             'Depressurise and open the vessel only as your procedures describe; keep it out of use and tagged.',
+            `The vessel in Emberline: ${siteLink(`/vessels/${run.vesselId}`)}`,
             'Local regulations, the vessel maker\'s instructions and the lab\'s own procedures come first.',
           ].join('\n'),
           dedupeKey: `firing-lock-out:${firingId}`,
