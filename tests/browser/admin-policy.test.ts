@@ -70,7 +70,7 @@ describe('lab policy, audit trail and mail pages in Chromium', () => {
     await page.waitForURL(/actor=natarajan/)
     await expect(page.getByTestId('audit-csv').getAttribute('href')).resolves.toBe('/api/audit/export.csv?entity=lab-settings&actor=natarajan')
     await entry.waitFor()
-    await entry.locator('details').evaluate((d) => { (d as HTMLDetailsElement).open = true })
+    await entry.locator('details').first().evaluate((d) => { (d as HTMLDetailsElement).open = true })
     await shot(page, 'audit')
 
     // Put the default back through the page, so later tests meet the lab as loaded.
@@ -120,9 +120,11 @@ describe('lab policy, audit trail and mail pages in Chromium', () => {
   it('the analyst cannot open the policy, audit or mail pages', async () => {
     const page = await openPage()
     await signInAs(page, 'analyst@emberline.test')
-    for (const path of ['/admin/policy', '/audit', '/admin/mail']) {
+    // Each page says which role it needs (a 403 page), instead of a silent redirect to Today.
+    for (const [path, role] of [['/admin/policy', 'Admin or Supervisor'], ['/audit', 'Supervisor or Admin'], ['/admin/mail', 'Admin']] as const) {
       await page.goto(path)
-      await page.waitForURL(url => url.pathname === '/')
+      await page.waitForURL(url => url.pathname === '/forbidden')
+      await expect(page.getByTestId('forbidden').textContent()).resolves.toContain(`needs the ${role} role`)
     }
     const nav = page.getByRole('navigation', { name: 'Main' })
     await expect(nav.getByRole('link', { name: 'Audit' }).count()).resolves.toBe(0)

@@ -107,6 +107,7 @@ describe('the day at the bench in Chromium', () => {
     const page = await openPage({ width: 1280, height: 900 })
     await signInAs(page, 'supervisor@emberline.test')
     const links = page.getByRole('navigation', { name: 'Main' }).getByRole('link')
+    await links.first().waitFor()
     const tops = new Set<number>()
     for (const box of await Promise.all((await links.all()).map(l => l.boundingBox()))) tops.add(Math.round(box!.y))
     expect([...tops]).toHaveLength(1)
@@ -114,22 +115,26 @@ describe('the day at the bench in Chromium', () => {
   })
 
   it('warns before a half-typed plan row or an unsaved policy change is lost', async () => {
-    const page = await openPage({ width: 1280, height: 900 })
-    await signInAs(page, 'supervisor@emberline.test')
-    await newPlan(page, `Unsaved ${Date.now().toString(36)}`)
-    await page.getByTestId('entry-code').fill('HALF-1')
+    const plan = await openPage({ width: 1280, height: 900 })
+    await signInAs(plan, 'analyst@emberline.test')
+    await newPlan(plan, `Unsaved ${Date.now().toString(36)}`)
+    await plan.getByTestId('entry-code').fill('HALF-1')
     // Leaving inside the app asks first; dismissing keeps the page and the typing.
     const asked: string[] = []
-    page.once('dialog', (d) => { asked.push(d.type()); void d.dismiss() })
-    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Quick check' }).click()
+    plan.once('dialog', (d) => { asked.push(d.type()); void d.dismiss() })
+    await plan.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Quick check' }).click()
     await expect.poll(() => asked).toEqual(['confirm'])
-    expect(page.url()).toMatch(/\/plans\//)
-    await expect(page.getByTestId('entry-code').inputValue()).resolves.toBe('HALF-1')
+    expect(plan.url()).toMatch(/\/plans\//)
+    await expect(plan.getByTestId('entry-code').inputValue()).resolves.toBe('HALF-1')
     // A reload asks through the browser's own prompt.
-    page.once('dialog', (d) => { asked.push(d.type()); void d.dismiss() })
-    await page.reload().catch(() => {})
+    plan.once('dialog', (d) => { asked.push(d.type()); void d.dismiss() })
+    await plan.reload({ timeout: 3000 }).catch(() => {})
     await expect.poll(() => asked).toEqual(['confirm', 'beforeunload'])
 
+    await plan.close({ runBeforeUnload: false })
+
+    const page = await openPage({ width: 1280, height: 900 })
+    await signInAs(page, 'supervisor@emberline.test')
     await page.goto('/admin/policy')
     await page.locator('main h1', { hasText: 'Lab policy' }).or(page.locator('main h1', { hasText: 'Admin' })).first().waitFor()
     await page.getByLabel('Method fill window, upper end').fill('3.1')
