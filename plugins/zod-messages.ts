@@ -1,4 +1,6 @@
-// The product's validation words for schemas parsed in the browser (the Quick check validates as you type).
-import '#shared/schemas/messages'
+import { installProductMessages } from '#shared/schemas/messages'
 
-export default defineNuxtPlugin(() => {})
+// The product's validation words for schemas parsed in the browser (the Quick check validates as you type).
+export default defineNuxtPlugin(() => {
+  installProductMessages()
+})

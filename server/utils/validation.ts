@@ -1,8 +1,6 @@
 import type { H3Event } from 'h3'
 import type { z } from 'zod'
 import { pathWords } from '#shared/field-labels'
-// Side effect: installs the product's validation words for every schema parsed on the server.
-import '#shared/schemas/messages'
 
 /** A 422 that names every failing field: `data.fields = [{ path, message }]`. */
 export function invalidInput(issues: readonly z.core.$ZodIssue[] | { path: string, message: string }[]): never {

@@ -41,4 +41,9 @@ export const productErrorMap: z.core.$ZodErrorMap = (issue) => {
   }
 }
 
-z.config({ customError: productErrorMap })
+/** Installs the product's words as zod's error map (the server and the browser each call it once at start). */
+export function installProductMessages() {
+  z.config({ customError: productErrorMap })
+}
+
+installProductMessages()
