@@ -51,6 +51,34 @@ describe('the day at the bench in Chromium', () => {
     await page.close()
   })
 
+  it('gives the plan entry row the same one answer, keeps a note, and resets the fill for the next row', async () => {
+    const page = await openPage({ width: 1400, height: 1000 })
+    await signInAs(page, 'analyst@emberline.test')
+    await newPlan(page, `Advice ${Date.now().toString(36)}`)
+    await page.getByTestId('entry-code').fill('COAL-2')
+    await page.getByTestId('entry-material').fill('Client coal, lot 7')
+    await page.getByTestId('entry-hv').fill('35000')
+    await page.getByTestId('entry-mass').fill('2')
+    await page.getByTestId('entry-fill').fill('3.1')
+    await page.getByTestId('entry-note').fill('pellet pressed')
+    const apply = page.getByTestId('apply-advice')
+    await expect.poll(() => apply.textContent()).toContain('Use 0.74 g')
+    await shot(page, 'plan-entry-advice')
+    await apply.click()
+    await expect(page.getByTestId('entry-mass').inputValue()).resolves.toBe('0.74')
+    // A fill inside the method window is kept.
+    await expect(page.getByTestId('entry-fill').inputValue()).resolves.toBe('3.1')
+    await page.getByTestId('entry-verdict').getByText('Clear').waitFor()
+    await page.getByTestId('entry-save').click()
+    await page.getByTestId('plan-table').locator('td', { hasText: 'COAL-2' }).first().waitFor()
+    // The next row starts from the plan's fill (3.00 MPa gauge), not the previous row's 3.1.
+    await expect(page.getByTestId('entry-fill').inputValue()).resolves.toBe('3')
+    await expect(page.getByTestId('entry-note').inputValue()).resolves.toBe('')
+    await page.getByTestId('run-1').getByRole('button', { name: 'Edit' }).click()
+    await expect(page.getByTestId('entry-note').inputValue()).resolves.toBe('pellet pressed')
+    await page.close({ runBeforeUnload: false })
+  })
+
   it('offers no mass or aid for a charge the energetic screen stops', async () => {
     const page = await openPage()
     await signInAs(page, 'analyst@emberline.test')
