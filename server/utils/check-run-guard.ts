@@ -1,9 +1,5 @@
 import { and, eq } from 'drizzle-orm'
-
-/** What the planner and the bench say when a check run is planned on a vessel with no accepted energy equivalent. */
-export function noEnergyEquivalentMessage(vesselName: string) {
-  return `standardise the vessel first: ${vesselName} has no accepted energy equivalent, so a check run on it could not be evaluated. Plan a series of benzoic-acid standardisation runs and have a supervisor accept it on the Standardisation page.`
-}
+import { noEnergyEquivalentWords } from '#shared/labels'
 
 /** True when the vessel has an energy equivalent in force. */
 export async function hasAcceptedEnergyEquivalent(db: Db | Tx, vesselId: string): Promise<boolean> {
@@ -19,5 +15,5 @@ export async function hasAcceptedEnergyEquivalent(db: Db | Tx, vesselId: string)
 export async function refuseCheckRunWithoutEnergyEquivalent(db: Db | Tx, kind: string, vessel: { id: string, name: string }, path = 'kind') {
   if (kind !== 'check') return
   if (await hasAcceptedEnergyEquivalent(db, vessel.id)) return
-  invalidInput([{ path, message: noEnergyEquivalentMessage(vessel.name) }])
+  invalidInput([{ path, message: noEnergyEquivalentWords(vessel.name) }])
 }

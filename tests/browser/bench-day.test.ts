@@ -76,6 +76,13 @@ describe('the day at the bench in Chromium', () => {
     await expect(page.getByTestId('entry-note').inputValue()).resolves.toBe('')
     await page.getByTestId('run-1').getByRole('button', { name: 'Edit' }).click()
     await expect(page.getByTestId('entry-note').inputValue()).resolves.toBe('pellet pressed')
+    await page.getByRole('button', { name: 'Cancel edit' }).click()
+
+    // A check run on KR-3 Cedar, which has no accepted energy equivalent (demo lab): said before anything is saved.
+    const entry = page.getByTestId('entry-code').locator('xpath=ancestor::div[contains(@class, "border-t-2")]')
+    await entry.getByLabel('Kind').selectOption('check')
+    await entry.getByLabel('Vessel').selectOption({ label: 'KR-3 Cedar' })
+    await expect.poll(() => page.getByTestId('entry-no-energy-equivalent').textContent()).toMatch(/standardise the vessel first: KR-3 Cedar has no accepted energy equivalent/i)
     await page.close({ runBeforeUnload: false })
   })
 
