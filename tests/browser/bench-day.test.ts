@@ -185,6 +185,16 @@ describe('the day at the bench in Chromium', () => {
     await page.close()
   })
 
+  it('answers sign-in with an empty password in the product\'s words', async () => {
+    const page = await openPage()
+    await page.goto('/login')
+    await page.getByLabel('E-mail').fill('analyst@emberline.test')
+    await page.getByRole('button', { name: 'Sign in' }).click()
+    await expect.poll(() => page.locator('form').textContent()).toContain('required')
+    await expect(page.locator('form').textContent()).resolves.not.toMatch(/Too small|expected string|>=/)
+    await page.close()
+  })
+
   it('tells an analyst who opens /approvals or /audit which role the page needs', async () => {
     const page = await openPage()
     await signInAs(page, 'analyst@emberline.test')
