@@ -31,7 +31,8 @@ export default defineNuxtConfig({
     },
     smtp: { host: '127.0.0.1', port: 2525, secure: false, user: '', pass: '', from: 'Emberline <no-reply@emberline.test>' },
     storageDir: '',
-    public: { labName: '' },
+    // siteUrl: the address people open Emberline at (NUXT_PUBLIC_SITE_URL), for absolute links in e-mails.
+    public: { labName: '', siteUrl: 'http://localhost:3000' },
   },
   // Security headers (issue 7). nuxt-security puts a fresh nonce on every script Nuxt renders and sends the page's
   // CSP with it; server/plugins/security-headers.ts adds the headers it sends only with pages (CSP, Permissions-Policy,

@@ -1,4 +1,5 @@
-import { assess } from '#shared/domain/assessment'
+import { adviseCharge, type ChargeAdvice } from '#shared/domain/advice'
+import { assessCharge, resolveComponents } from '#shared/domain/assessment'
 import type { Assessment, ChargeComponentInput } from '#shared/domain/assessment'
 import type { LabPolicy } from '#shared/domain/policy'
 import { componentFromMaterial } from '#shared/material-component'
@@ -75,25 +76,28 @@ export function resolveWithMaterials(components: RunComponent[], materials: Mate
 /** Live assessment of a draft in the browser, with the same shared code the server runs. */
 export function useLiveAssessment(source: () => { draft: ChargeDraft, vessel: VesselSummary | undefined, materials: MaterialOption[], policy: LabPolicy | undefined }) {
   const result = ref<Assessment | null>(null)
+  const advice = ref<ChargeAdvice | null>(null)
   const problem = ref<string | null>(null)
   let ticket = 0
   watchDebounced(source, async ({ draft, vessel, materials, policy }) => {
     const mine = ++ticket
-    if (!vessel || !policy || !isNum(draft.fillPressureMPa)) { result.value = null; return }
+    if (!vessel || !policy || !isNum(draft.fillPressureMPa)) { result.value = null; advice.value = null; return }
     const components = resolveWithMaterials(draftComponents(draft, materials), materials)
     const sample = components.find(c => c.role === 'sample')
     if (!sample || (sample.heatingValueJPerG === undefined && !sample.composition && !sample.formula && !sample.smiles && !draft.materialName.trim())) {
       result.value = null
+      advice.value = null
       problem.value = null
       return
     }
     try {
-      const a = await assess({ vessel: { ...vessel }, fillPressureMPa: draft.fillPressureMPa, components, runRole: draft.kind }, policy)
-      if (mine === ticket) { result.value = a; problem.value = null }
+      const input = { vessel: { ...vessel }, fillPressureMPa: draft.fillPressureMPa, components: await resolveComponents(components), runRole: draft.kind }
+      const a = assessCharge(input, policy)
+      if (mine === ticket) { result.value = a; advice.value = adviseCharge(input, policy, a); problem.value = null }
     }
     catch (err) {
-      if (mine === ticket) { result.value = null; problem.value = (err as Error).message }
+      if (mine === ticket) { result.value = null; advice.value = null; problem.value = (err as Error).message }
     }
   }, { debounce: 120, deep: true, immediate: true })
-  return { result, problem }
+  return { result, advice, problem }
 }

@@ -22,7 +22,8 @@ export interface SeedMaterial {
 
 const typical = (min: number, max: number, what: string) => ({
   heatingValueJPerG: max,
-  heatingValueSource: `Typical range for ${what} (from memory); the upper end is used for planning so that the check errs on the safe side.`,
+  // Typical ranges recalled from handbooks (from memory): the page says only what the figure is for.
+  heatingValueSource: `Typical range for ${what}; the upper end is used for planning so that the check errs on the safe side. Not a certified value.`,
   typicalRange: { minJPerG: min, maxJPerG: max, note: 'typical, not a certified value' },
 })
 
@@ -41,7 +42,7 @@ const SHIPPED: SeedMaterial[] = [
   },
   { name: 'Paraffin oil (combustion aid)', category: 'combustion aid', ...typical(45500, 46500, 'liquid paraffin'), notes: 'Determine the lot\'s own value before using it as an aid in results.' },
   { name: 'Gelatin capsule (combustion aid)', category: 'combustion aid', ...typical(17500, 19500, 'hard gelatin capsules'), notes: 'For volatile liquids; determine the lot\'s own value.' },
-  { name: 'Cotton thread (fuse)', category: 'combustion aid', heatingValueJPerG: 17500, heatingValueSource: 'About 17.5 kJ/g for cellulose thread (from memory).' },
+  { name: 'Cotton thread (fuse)', category: 'combustion aid', heatingValueJPerG: 17500, heatingValueSource: 'About 17.5 kJ/g for cellulose thread; the lab\'s own planning value.' }, // from memory
   {
     name: '2,2,4-Trimethylpentane (isooctane)', category: 'reference standard', formula: 'C8H18', smiles: 'CC(C)CC(C)(C)C', boilingPointC: 99.2,
     heatingValueJPerG: 47788, heatingValueSource: 'ASTM D240 (check standard for volatile fuels): 47.788 MJ/kg.',

@@ -7,5 +7,6 @@ export default defineNuxtRouteMiddleware(async (to) => {
   if (!loggedIn.value) return navigateTo({ path: '/login', query: to.fullPath !== '/' ? { next: to.fullPath } : {} })
   const roles = to.meta.roles as Role[] | undefined
   const { user } = useUserSession()
-  if (roles && !roles.some(r => user.value?.roles.includes(r))) return navigateTo('/')
+  // Said, not hidden: a page the role cannot use explains which role it needs (the URL asked for is kept in `from`).
+  if (roles && !roles.some(r => user.value?.roles.includes(r))) return navigateTo({ path: '/forbidden', query: { from: to.fullPath } })
 })

@@ -101,7 +101,7 @@ export async function recordFiring(act: Act, id: string, key: string, body: Firi
             '',
             ...why.map(w => `  • ${w}`),
             '',
-            'The run is back in Approvals. It may be fired only after you sign the exception again.',
+            `The run is back in Approvals (${siteLink('/approvals')}). It may be fired only after you sign the exception again.`,
           ].join('\n'),
           dedupeKey: `run-reapproval:${id}:${chargeHash}`,
         })
@@ -185,6 +185,7 @@ export async function recordFiring(act: Act, id: string, key: string, body: Firi
             '',
             `Emberline has locked the vessel out: no run can be fired in it until it has been requalified and returned to service.`,
             'Depressurise and open the vessel only as your procedures describe; keep it out of use and tagged.',
+            `The vessel in Emberline: ${siteLink(`/vessels/${run.vesselId}`)}`,
             'Local regulations, the vessel maker\'s instructions and the lab\'s own procedures come first.',
           ].join('\n'),
           dedupeKey: `firing-lock-out:${firingId}`,

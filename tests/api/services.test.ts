@@ -354,7 +354,10 @@ describe('a check run returns a serviced vessel to service', () => {
     await call('POST', `/api/runs/${sample.body.id}/withdraw`, { cookie: analyst, body: {} })
     const std = []
     for (let i = 0; i < 5; i++) std.push((await call('POST', `/api/plans/${plan.id}/runs`, { cookie: analyst, body: charge('standardisation') })).body)
-    const check = (await call('POST', `/api/plans/${plan.id}/runs`, { cookie: analyst, body: charge('check') })).body
+    // Before an energy equivalent is accepted, a check run is refused up front: it could not be evaluated.
+    const early = await call('POST', `/api/plans/${plan.id}/runs`, { cookie: analyst, body: charge('check') })
+    expect(early.status).toBe(422)
+    expect(early.body.data.fields[0]).toMatchObject({ path: 'kind', message: expect.stringMatching(/^standardise the vessel first: .* has no accepted energy equivalent/) })
     const submitted = await call('POST', `/api/plans/${plan.id}/submit`, { cookie: analyst, body: {} })
     expect(submitted.status, JSON.stringify(submitted.body)).toBe(200)
     expect(submitted.body.runs.every((r: any) => r.status === 'ready')).toBe(true)
@@ -372,6 +375,8 @@ describe('a check run returns a serviced vessel to service', () => {
     expect(accepted.status, JSON.stringify(accepted.body)).toBe(201)
     expect((await state(v.id)).state).toBe('awaiting-verification')
 
+    const check = (await call('POST', `/api/plans/${plan.id}/runs`, { cookie: analyst, body: charge('check') })).body
+    expect((await call('POST', `/api/plans/${plan.id}/submit`, { cookie: analyst, body: {} })).body.runs.find((r: any) => r.id === check.id).status).toBe('ready')
     await fire(check.id)
     const res = await call('POST', `/api/runs/${check.id}/result`, { cookie: analyst, body: { temperatureRiseK: 2.6454, sampleMassG: 1.0, certifiedValueJPerG: BA } })
     expect(res.status, JSON.stringify(res.body)).toBe(201)

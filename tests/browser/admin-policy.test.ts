@@ -55,11 +55,13 @@ describe('lab policy, audit trail and mail pages in Chromium', () => {
     await expect(page.getByText('nobody — admins included — can edit or delete an entry').isVisible()).resolves.toBe(true)
     const entry = page.locator('tr', { hasText: reason })
     await entry.waitFor()
-    await expect(entry.textContent()).resolves.toContain('settings.update')
+    // Actions and fields in the words the pages use; the raw key is one click away.
+    await expect(entry.textContent()).resolves.toContain('Settings: update')
     await expect(entry.textContent()).resolves.toContain('Priya Natarajan')
     await entry.getByText(/\d+ changes?/).click()
     const changes = entry.getByTestId('audit-changes')
-    await expect(changes.textContent()).resolves.toMatch(/policy\.fillPressureWindowMaxMPa\s*from\s*3\.2\s*→\s*to\s*3\.3/)
+    await expect(changes.textContent()).resolves.toMatch(/Lab policy, method fill window, upper end \(MPa gauge\)\s*from\s*3\.2\s*→\s*to\s*3\.3/)
+    await expect(entry.getByTestId('audit-raw').textContent()).resolves.toContain('policy.fillPressureWindowMaxMPa')
     // The CSV link carries the filters in force.
     await expect(page.getByTestId('audit-csv').getAttribute('href')).resolves.toBe('/api/audit/export.csv?entity=lab-settings')
     // Filters typed into the bar go to the address and to the CSV link.
@@ -68,7 +70,7 @@ describe('lab policy, audit trail and mail pages in Chromium', () => {
     await page.waitForURL(/actor=natarajan/)
     await expect(page.getByTestId('audit-csv').getAttribute('href')).resolves.toBe('/api/audit/export.csv?entity=lab-settings&actor=natarajan')
     await entry.waitFor()
-    await entry.locator('details').evaluate((d) => { (d as HTMLDetailsElement).open = true })
+    await entry.locator('details').first().evaluate((d) => { (d as HTMLDetailsElement).open = true })
     await shot(page, 'audit')
 
     // Put the default back through the page, so later tests meet the lab as loaded.
@@ -118,9 +120,11 @@ describe('lab policy, audit trail and mail pages in Chromium', () => {
   it('the analyst cannot open the policy, audit or mail pages', async () => {
     const page = await openPage()
     await signInAs(page, 'analyst@emberline.test')
-    for (const path of ['/admin/policy', '/audit', '/admin/mail']) {
+    // Each page says which role it needs (a 403 page), instead of a silent redirect to Today.
+    for (const [path, role] of [['/admin/policy', 'Admin or Supervisor'], ['/audit', 'Supervisor or Admin'], ['/admin/mail', 'Admin']] as const) {
       await page.goto(path)
-      await page.waitForURL(url => url.pathname === '/')
+      await page.waitForURL(url => url.pathname === '/forbidden')
+      await expect(page.getByTestId('forbidden').textContent()).resolves.toContain(`needs the ${role} role`)
     }
     const nav = page.getByRole('navigation', { name: 'Main' })
     await expect(nav.getByRole('link', { name: 'Audit' }).count()).resolves.toBe(0)

@@ -46,8 +46,9 @@ describe('Quick check in Chromium', () => {
     await page.getByRole('radio', { name: 'MJ/kg' }).click()
     await expect(page.getByTestId('check-result').textContent()).resolves.toContain('26.454 MJ/kg')
 
-    // The suggested mass for the 26 kJ target (policy): (26,000 − 96) J / 26,454 J/g = 0.979 g, shown rounded down to 0.97 g.
-    await page.getByTestId('use-mass').click()
+    // One answer first: the mass for the 26 kJ target (policy), (26,000 − 96) J / 26,454 J/g = 0.979 g, rounded down to 0.97 g.
+    await expect(page.getByTestId('apply-advice').textContent()).resolves.toContain('Use 0.97 g')
+    await page.getByTestId('apply-advice').click()
     await expect(sample.getByLabel('Mass (g)').inputValue()).resolves.toBe('0.97')
     await verdict.getByText('Clear').waitFor()
     await verdict.getByText('Checked by the server').waitFor()
@@ -59,7 +60,8 @@ describe('Quick check in Chromium', () => {
     await signInAs(page, 'analyst@emberline.test')
     await page.goto('/check')
     const elder = page.getByTestId('pick-vessel-KR-5 Elder')
-    await expect(elder.textContent()).resolves.toContain('Blocks sample firings')
+    // KR-5 is locked out: the picker says it in the one wording the bench and the e-mails use.
+    await expect(elder.textContent()).resolves.toContain('No run may be fired in this vessel')
     await elder.click()
     await page.getByTestId('component-sample-1').getByLabel('Mass (g)').fill('0.5')
     await page.getByTestId('component-sample-1').getByLabel('Heating value, if known').fill('26454')

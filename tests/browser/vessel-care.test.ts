@@ -96,7 +96,6 @@ describe('vessel care in Chromium', () => {
     const charge = (kind: string) => ({ sampleCode: unique(kind.slice(0, 3).toUpperCase()), kind, components: [kind === 'sample' ? { role: 'sample', massG: 1.0, heatingValueJPerG: 26454, smiles: 'OC(=O)c1ccccc1' } : { role: 'sample', massG: 1.0, materialId: ba }, { role: 'fuse', wire: 'platinum', lengthCm: 10 }] })
     const runs = []
     for (let i = 0; i < 5; i++) runs.push((await call('POST', `/api/plans/${plan.id}/runs`, { cookie: analyst, body: charge('standardisation') })).body)
-    const check = (await call('POST', `/api/plans/${plan.id}/runs`, { cookie: analyst, body: charge('check') })).body
     expect((await call('POST', `/api/plans/${plan.id}/submit`, { cookie: analyst, body: {} })).status).toBe(200)
     const fire = async (runId: string) => expect((await call('POST', `/api/runs/${runId}/firing`, { cookie: analyst, headers: { 'idempotency-key': unique('f') }, body: { outcome: 'complete', weighedMassG: 1.0 } })).status).toBe(201)
     const resultIds: string[] = []
@@ -105,6 +104,9 @@ describe('vessel care in Chromium', () => {
       resultIds.push((await call('POST', `/api/runs/${r.id}/result`, { cookie: analyst, body: { temperatureRiseK: [2.6454, 2.6460, 2.6448, 2.6456, 2.6452][i], sampleMassG: 1.0 } })).body.result.id)
     }
     expect((await call('POST', `/api/vessels/${id}/energy-equivalent`, { cookie: await as('supervisor'), body: { resultIds, password: DEMO_PASSWORD, reason: 'Series after the routine service' } })).status).toBe(201)
+    // The check run is planned once the vessel has an accepted energy equivalent (refused up front before).
+    const check = (await call('POST', `/api/plans/${plan.id}/runs`, { cookie: analyst, body: charge('check') })).body
+    expect((await call('POST', `/api/plans/${plan.id}/submit`, { cookie: analyst, body: {} })).status).toBe(200)
     await fire(check.id)
     const checked = await call('POST', `/api/runs/${check.id}/result`, { cookie: analyst, body: { temperatureRiseK: 2.6454, sampleMassG: 1.0, certifiedValueJPerG: 26454 } })
     expect(checked.body.check.returnedToService).toBe(true)

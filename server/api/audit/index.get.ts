@@ -11,5 +11,7 @@ export default defineEventHandler(async (event) => {
     db.select().from(a).where(where).orderBy(...auditOrder()).limit(q.pageSize).offset((q.page - 1) * q.pageSize),
     db.select({ n: count() }).from(a).where(where),
   ])
-  return { rows, total: total?.n ?? 0, page: q.page, pageSize: q.pageSize }
+  // Each row names its record as the pages do (sample code, vessel, plan, user…); the raw id stays beside it.
+  const names = await auditRecordNames(db, rows)
+  return { rows: rows.map(r => ({ ...r, entityName: r.entityId ? names[`${r.entity}:${r.entityId.toLowerCase()}`] ?? null : null })), total: total?.n ?? 0, page: q.page, pageSize: q.pageSize }
 })

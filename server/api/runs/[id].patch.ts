@@ -21,6 +21,7 @@ export default defineEventHandler(async (event) => {
     const fillPressureMPa = input.fillPressureMPa ?? before.fillPressureMPa
     const components = input.components ?? (before.components as RunInput['components'])
     const kind = input.kind ?? before.kind
+    await refuseCheckRunWithoutEnergyEquivalent(tx, kind, vessel)
     const { assessment, chargeHash } = await assessRun(tx, { vessel, fillPressureMPa, components, kind }, policy)
     const [row] = await tx.update(schema.runs).set({
       sampleCode: input.sampleCode ?? before.sampleCode, kind, vesselId, fillPressureMPa, components, note: input.note ?? before.note,

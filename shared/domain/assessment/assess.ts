@@ -3,7 +3,7 @@ import { fillGaugeForOxygenMol } from '../oxygen'
 import { proofChargeBound } from '../peak-pressure'
 import type { LabPolicy } from '../policy'
 import { type Assessment, type ChargeInput, ChargeInputError, type ComponentAssessment, type Finding, type Severity, type Suggestions, type Verdict } from './contract'
-import { finding, grams, kJ, mpa, over, pct, reduceSampleTo, sampleConditionFindings, screeningFindings, under, vesselFindings } from './findings'
+import { fillInWindow, finding, grams, kJ, mpa, over, pct, reduceSampleTo, sampleConditionFindings, screeningFindings, under, vesselFindings } from './findings'
 import { ceil2, energyLimit, floor2, massLimit, oxygenLimit, peakLimit, suggestAidMass, suggestFromModel } from './limits'
 import { buildModel, type ComponentModel, peakAt, stateAt, validate } from './model'
 import { methodNotes } from './notes'
@@ -68,14 +68,14 @@ export function assessCharge(input: ChargeInput, policy: LabPolicy): Assessment 
     const need = fillFor(policy.minOxygenExcess) ?? 0
     const limit = oxygenLimit(model, policy.minOxygenExcess)
     const raise = need <= v.maxFillPressureMPa
-      ? `raise the fill to ≥ ${mpa(need)} gauge (maximum ${mpa(v.maxFillPressureMPa)} gauge) or ${reduceSampleTo(model, limit)}`
+      ? `${fillInWindow(need, v.maxFillPressureMPa, policy)} or ${reduceSampleTo(model, limit)}`
       : `no fill up to the vessel maximum of ${mpa(v.maxFillPressureMPa)} gauge is enough (≥ ${mpa(need)} gauge needed): ${reduceSampleTo(model, limit)}`
     findings.push(finding('oxygen-insufficient', `Oxygen excess ${floor2(excess).toFixed(2)} is below ${policy.minOxygenExcess}: ${raise}.`, { oxygenExcess: excess, fillNeededMPa: need }))
   }
   else if (excess !== null && under(excess, policy.approvalOxygenExcess)) {
     const need = fillFor(policy.approvalOxygenExcess) ?? 0
     const limit = oxygenLimit(model, policy.approvalOxygenExcess)
-    const raise = need <= v.maxFillPressureMPa ? `raise the fill to ≥ ${mpa(need)} gauge or ${reduceSampleTo(model, limit)}` : reduceSampleTo(model, limit)
+    const raise = need <= Math.min(v.maxFillPressureMPa, policy.fillPressureWindowMaxMPa) ? `${fillInWindow(need, v.maxFillPressureMPa, policy)} or ${reduceSampleTo(model, limit)}` : reduceSampleTo(model, limit)
     findings.push(finding('oxygen-low', `Oxygen excess ${floor2(excess).toFixed(2)} is below ${policy.approvalOxygenExcess}: a supervisor must approve, or ${raise}.`, { oxygenExcess: excess, fillNeededMPa: need }))
   }
 

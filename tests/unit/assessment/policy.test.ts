@@ -30,7 +30,14 @@ describe('lab policy', () => {
       expect(d.label).not.toBe('')
       expect(d.source).not.toBe('')
     }
-    expect(POLICY_DESCRIPTIONS.electrodeResistanceMaxOhm.source).toBe('common practice')
+    expect(POLICY_DESCRIPTIONS.electrodeResistanceMaxOhm.source).toMatch(/^The lab's own decision/)
+  })
+
+  it('shows pages a standard and clause or the lab\'s own decision, never a provenance note', () => {
+    for (const [key, d] of Object.entries(POLICY_DESCRIPTIONS)) {
+      expect(d.source, key).not.toMatch(/from memory|common practice|secondary/i)
+      expect(d.source, key).toMatch(/^(The lab's own decision|UN Manual of Tests and Criteria, Appendix 6, (clause|section) |NIST S|Stoichiometry|Conversion factors: NIST SP 811)/)
+    }
   })
 })
 

@@ -27,6 +27,7 @@ export default defineEventHandler(async (event) => {
     if (!r.input) return { line: r.line, sampleCode: r.sampleCode, errors: r.errors, verdict: null, findings: [] }
     const vessel = r.input.vesselName ? vesselsByName.get(r.input.vesselName)! : planVessel
     try {
+      await refuseCheckRunWithoutEnergyEquivalent(db, r.input.kind, vessel)
       const { assessment } = await assessRun(db, { vessel, fillPressureMPa: r.input.fillPressureMPa ?? plan.fillPressureMPa, components: r.input.components, kind: r.input.kind }, policy)
       return { line: r.line, sampleCode: r.sampleCode, errors: [], verdict: assessment.verdict, heatReleaseJ: assessment.heatReleaseJ, vesselName: vessel.name, findings: assessment.findings.filter(f => f.severity !== 'info').map(f => ({ code: f.code, severity: f.severity, message: f.message })) }
     }

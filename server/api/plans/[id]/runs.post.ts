@@ -11,6 +11,7 @@ export default defineEventHandler(async (event) => {
     const vesselId = input.vesselId ?? plan.vesselId
     const vessel = vesselView(await findVesselOr404(tx, vesselId), policy)
     const fillPressureMPa = input.fillPressureMPa ?? plan.fillPressureMPa
+    await refuseCheckRunWithoutEnergyEquivalent(tx, input.kind, vessel)
     const { assessment, chargeHash } = await assessRun(tx, { vessel, fillPressureMPa, components: input.components, kind: input.kind }, policy)
     const [row] = await insertNumberedRuns(tx, id, [{
       sampleCode: input.sampleCode, kind: input.kind, vesselId, fillPressureMPa,

@@ -44,7 +44,7 @@ export default defineEventHandler(async (event) => {
             ...waiting.map(r => `  #${r.seq}  ${r.sampleCode}`),
             '',
             `Summary: ${Object.entries(counts).map(([s, n]) => `${n} ${RUN_STATUS_LABELS[s]?.toLowerCase() ?? s}`).join(', ')}.`,
-            'Open Approvals in Emberline to review the findings and sign or reject.',
+            `Open Approvals in Emberline to review the findings and sign or reject: ${siteLink('/approvals')}`,
           ].join('\n'),
           dedupeKey: `plan-submit:${id}:${now.toISOString()}`,
         })

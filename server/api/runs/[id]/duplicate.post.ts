@@ -10,6 +10,7 @@ export default defineEventHandler(async (event) => {
     await findPlanOr404(tx, src.planId, true)
     const vessel = vesselView(await findVesselOr404(tx, src.vesselId), policy)
     const components = src.components as RunInput['components']
+    await refuseCheckRunWithoutEnergyEquivalent(tx, src.kind, vessel)
     const { assessment, chargeHash } = await assessRun(tx, { vessel, fillPressureMPa: src.fillPressureMPa, components, kind: src.kind }, policy)
     const [row] = await insertNumberedRuns(tx, src.planId, [{
       sampleCode: src.sampleCode, kind: src.kind, vesselId: src.vesselId, fillPressureMPa: src.fillPressureMPa,
