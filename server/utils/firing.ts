@@ -1,7 +1,7 @@
 // Recording a firing (issue 5): idempotent by key, re-assessed on the weighed charge, counted by the database.
 import { createHash, randomUUID } from 'node:crypto'
 import type { H3Event } from 'h3'
-import { eq, sql } from 'drizzle-orm'
+import { and, eq, sql } from 'drizzle-orm'
 import { z } from 'zod'
 import type { Assessment, Finding } from '#shared/domain/assessment'
 import type { RunComponent } from '#shared/schemas/plans'
@@ -74,9 +74,10 @@ export interface FiringAnswer {
   message: string
 }
 
-/** The stored first answer for this key, or null; 422 when the key was used for another request. */
-export async function firingReplay(db: Db | Tx, key: string, requestHash: string): Promise<FiringAnswer | null> {
-  const [row] = await db.select({ answer: schema.firings.answer, data: schema.firings.data }).from(schema.firings).where(eq(schema.firings.idempotencyKey, key))
+/** The stored first answer for this user's key, or null; 422 when the key was used for another request. Keys are scoped to the user who sent them. */
+export async function firingReplay(db: Db | Tx, userId: string, key: string, requestHash: string): Promise<FiringAnswer | null> {
+  const [row] = await db.select({ answer: schema.firings.answer, data: schema.firings.data }).from(schema.firings)
+    .where(and(eq(schema.firings.firedBy, userId), eq(schema.firings.idempotencyKey, key)))
   if (!row) return null
   if ((row.data as { requestHash?: string }).requestHash !== requestHash) {
     throw createError({
@@ -167,7 +168,7 @@ export async function recordFiring(event: H3Event) {
     setResponseStatus(event, 201)
     return answer
   }
-  const first = await firingReplay(db, key, requestHash)
+  const first = await firingReplay(db, user.id, key, requestHash)
   if (first) return replied(first)
   const policy = await getPolicy()
 
@@ -176,7 +177,7 @@ export async function recordFiring(event: H3Event) {
     outcome = await db.transaction(async (tx): Promise<Outcome> => {
       const run = await findRunOr404(tx, id, true)
       // A twin request with this key may have committed while this one waited for the run.
-      const twin = await firingReplay(tx, key, requestHash)
+      const twin = await firingReplay(tx, user.id, key, requestHash)
       if (twin) return { kind: 'replay', answer: twin }
       if (run.status !== 'ready') {
         const why = run.status === 'fired' ? 'it has already been fired' : run.status === 'awaiting-approval' ? 'it awaits a supervisor\'s signature' : `it is ${run.status}`
@@ -307,8 +308,8 @@ export async function recordFiring(event: H3Event) {
   }
   catch (err) {
     // Two requests with one key at the same instant: the loser answers with the winner's answer.
-    if (isUniqueViolation(err, 'firings_idempotency_key_unique')) {
-      const winner = await firingReplay(db, key, requestHash)
+    if (isUniqueViolation(err, 'firings_user_idempotency_key_idx')) {
+      const winner = await firingReplay(db, user.id, key, requestHash)
       if (winner) return replied(winner)
     }
     if (isUniqueViolation(err, 'firings_run_id_unique')) {

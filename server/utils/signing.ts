@@ -65,7 +65,6 @@ export async function signRun(event: H3Event, decision: Decision) {
     throw createError({ statusCode: 409, message: `The assessment of this run changed since it was submitted (now: ${outcome.status}). Review it again.` })
   }
   // A fresh session after a signature (issue 7: sessions renewed at signature).
-  const session = await getUserSession(event)
-  await replaceUserSession(event, { user: session.user, epoch: session.epoch, loggedInAt: session.loggedInAt, lastSeenAt: Date.now() })
+  await renewSession(event)
   return outcome.run
 }

@@ -41,6 +41,7 @@ export interface LabPolicy {
   checkRunTolerancePct: number
   electrodeResistanceMaxOhm: number
   uploadMaxBytes: number
+  maxRunsPerPlan: number
   sessionIdleMinutes: number
   sessionAbsoluteHours: number
   displayUnit: SpecificEnergyUnit
@@ -79,6 +80,7 @@ export const DEFAULT_POLICY: LabPolicy = {
   checkRunTolerancePct: 0.3,
   electrodeResistanceMaxOhm: 5,
   uploadMaxBytes: 10485760,
+  maxRunsPerPlan: 300,
   sessionIdleMinutes: 60,
   sessionAbsoluteHours: 12,
   displayUnit: 'J/g',
@@ -125,6 +127,7 @@ export const labPolicySchema = z
     checkRunTolerancePct: positive().max(10),
     electrodeResistanceMaxOhm: positive().max(1000),
     uploadMaxBytes: count().max(1073741824),
+    maxRunsPerPlan: count().max(1000),
     sessionIdleMinutes: count().max(1440),
     sessionAbsoluteHours: count().max(168),
     displayUnit: z.enum(SPECIFIC_ENERGY_UNITS),
@@ -187,6 +190,7 @@ export const POLICY_DESCRIPTIONS: Readonly<Record<keyof LabPolicy, PolicyDescrip
   checkRunTolerancePct: { label: 'Check run agreement with the certified value', unit: '%', source: 'common practice' },
   electrodeResistanceMaxOhm: { label: 'Electrode resistance limit after service', unit: 'Ω', source: 'common practice' },
   uploadMaxBytes: { label: 'Largest data file accepted', unit: 'bytes', source: 'common practice' },
+  maxRunsPerPlan: { label: 'Most runs in one plan', unit: 'runs', source: 'common practice (a plan is a day\'s or a week\'s batch)' },
   sessionIdleMinutes: { label: 'Sign out after idle', unit: 'minutes', source: 'common practice' },
   sessionAbsoluteHours: { label: 'Sign out at the latest after', unit: 'hours', source: 'common practice' },
   displayUnit: { label: 'Unit for calorific values', unit: '—', source: 'NIST SP 811 factors' },

@@ -75,7 +75,7 @@ describe('cross-site request protection', () => {
 
   describe('behind a trusted reverse proxy (EMBERLINE_TRUST_PROXY=1)', () => {
     let server: ServerProcess
-    beforeAll(async () => { server = await startServer({ EMBERLINE_TRUST_PROXY: '1', EMBERLINE_REMINDERS: 'off' }) })
+    beforeAll(async () => { server = await startServer({ EMBERLINE_TRUST_PROXY: '1', EMBERLINE_REMINDERS: 'off', NUXT_PUBLIC_SITE_URL: 'https://lab.example' }) })
     afterAll(async () => { await server?.stop() })
 
     async function post(path: string, body: unknown, headers: Record<string, string>) {

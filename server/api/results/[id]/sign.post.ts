@@ -35,7 +35,6 @@ export default defineEventHandler(async (event) => {
     return view!
   })
   // A fresh session after a signature, as for approvals.
-  const session = await getUserSession(event)
-  await replaceUserSession(event, { user: session.user, epoch: session.epoch, loggedInAt: session.loggedInAt, lastSeenAt: Date.now() })
+  await renewSession(event)
   return signed
 })

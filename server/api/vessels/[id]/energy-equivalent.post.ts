@@ -48,8 +48,7 @@ export default defineEventHandler(async (event) => {
     })
     return { energyEquivalent: energyEquivalentView(row!, user.name), statistics: stats }
   })
-  const session = await getUserSession(event)
-  await replaceUserSession(event, { user: session.user, epoch: session.epoch, loggedInAt: session.loggedInAt, lastSeenAt: Date.now() })
+  await renewSession(event)
   setResponseStatus(event, 201)
   return accepted
 })

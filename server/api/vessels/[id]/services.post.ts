@@ -9,8 +9,7 @@ export default defineEventHandler(async (event) => {
   await verifySigner(event, user.id, input.password, 'vessel', id)
   const result = await recordService(event, user, id, input)
   // A fresh session after a signature, as for approvals.
-  const session = await getUserSession(event)
-  await replaceUserSession(event, { user: session.user, epoch: session.epoch, loggedInAt: session.loggedInAt, lastSeenAt: Date.now() })
+  await renewSession(event)
   setResponseStatus(event, 201)
   return result
 })
