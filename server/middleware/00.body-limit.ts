@@ -5,9 +5,33 @@
 import type { IncomingMessage } from 'node:http'
 import type { H3Event } from 'h3'
 
+// After a refusal the rest of the body is read and thrown away for a moment, so that the client, still sending, gets
+// to read the 413 before the connection closes; past these bounds the connection is cut.
+const DRAIN_BYTES = 4 * 1024 * 1024
+const DRAIN_MS = 2_000
+
+function discardRest(req: IncomingMessage) {
+  let drained = 0
+  const stop = () => {
+    clearTimeout(timer)
+    req.off('data', onData)
+    if (!req.complete) req.socket?.destroy()
+  }
+  const onData = (chunk: Buffer) => {
+    drained += chunk.length
+    if (drained > DRAIN_BYTES) stop()
+  }
+  const timer = setTimeout(stop, DRAIN_MS)
+  timer.unref?.()
+  req.on('data', onData).once('end', () => {
+    clearTimeout(timer)
+    req.off('data', onData)
+  })
+  req.resume()
+}
+
 function tooLarge(event: H3Event, limit: number, what: string) {
-  // The rest of the body is never read: the connection closes after this answer.
-  setResponseHeader(event, 'Connection', 'close')
+  discardRest(event.node.req)
   return createError({
     statusCode: 413,
     message: `The request body is larger than the ${formatBytes(limit)} accepted for ${what}. Nothing was changed.`,
@@ -26,7 +50,6 @@ function readLimited(req: IncomingMessage, limit: number): Promise<Buffer | null
       size += chunk.length
       if (size > limit) {
         done()
-        req.pause()
         resolve(null)
         return
       }

@@ -21,7 +21,8 @@ export async function passwordWeakness(password: string, userInputs: string[] = 
   const { estimator, commonList } = load()
   const lower = password.toLowerCase()
   if (commonList.has(lower) || commonList.has(lower.replace(/\d+$/, ''))) return 'this is on a list of common passwords'
-  const inputs = userInputs.flatMap(s => [s, ...s.toLowerCase().split(/[@.\s_-]+/)]).filter(s => s.length >= 3)
+  // The e-mail, its local part and every word of it and of the name count as known to an attacker.
+  const inputs = userInputs.flatMap(s => [s, s.toLowerCase().split('@')[0] ?? '', ...s.toLowerCase().split(/[@.\s_-]+/)]).filter(s => s.length >= 3)
   const result = await estimator.check(password.slice(0, 128), inputs)
   if (result.score >= MIN_SCORE) return null
   const hint = result.feedback.warning ?? result.feedback.suggestions[0] ?? null

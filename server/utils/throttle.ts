@@ -112,7 +112,8 @@ export async function checkPasswordThrottled(event: H3Event, email: string, purp
     ok = await inHashSlot(() => verifyPassword(passwordHash, password))
   }
   finally {
-    await useDb().update(schema.loginAttempts).set({ success: ok }).where(eq(schema.loginAttempts.id, attemptId))
+    // Stamped when the answer is known, so that the back-off counts from the failure the client saw.
+    await useDb().update(schema.loginAttempts).set({ success: ok, at: new Date() }).where(eq(schema.loginAttempts.id, attemptId))
   }
   return ok
 }
