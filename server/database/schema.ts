@@ -74,7 +74,7 @@ export const userSessions = pgTable('user_sessions', {
   userAgent: text('user_agent'),
   ip: text('ip'),
   revokedAt: timestamp('revoked_at', { withTimezone: true }),
-  // sign-out, renewed, password-change, password-reset, role-change, disabled, ended-by-user, ended-by-admin
+  // sign-out, expired, password-change, password-reset, role-change, disabled, ended-by-user, ended-by-admin
   revokedReason: text('revoked_reason'),
 }, t => [index('user_sessions_user_idx').on(t.userId, t.revokedAt)])
 

@@ -5,7 +5,7 @@ import type { H3Event } from 'h3'
 import { and, eq, isNull, ne } from 'drizzle-orm'
 import type { AuthedUser } from './auth'
 
-export type SessionEndReason = 'sign-out' | 'renewed' | 'expired' | 'password-change' | 'password-reset' | 'role-change'
+export type SessionEndReason = 'sign-out' | 'expired' | 'password-change' | 'password-reset' | 'role-change'
   | 'disabled' | 'ended-by-user' | 'ended-by-admin'
 
 /** The client address as the throttle and the session list see it: X-Forwarded-For only behind a trusted proxy. */
@@ -27,13 +27,17 @@ export async function startSession(event: H3Event, user: AuthedUser, opts: { cre
   return row!
 }
 
-/** A fresh session after a signature: the old row ends, a new one keeps the sign-in time (so the absolute limit holds). */
+/**
+ * A freshly sealed cookie after a signature, for the same session row: the sign-in time and the row stay, so that the
+ * absolute limit holds and the user's other tabs keep working. (A new row is made at every sign-in.)
+ */
 export async function renewSession(event: H3Event) {
   const user = await requireUser(event)
-  const oldId = event.context.sessionId
-  const [old] = oldId ? await useDb().select().from(schema.userSessions).where(eq(schema.userSessions.id, oldId)) : []
-  if (oldId) await endSession(useDb(), oldId, 'renewed')
-  await startSession(event, user, { createdAt: old?.createdAt })
+  const session = await getUserSession(event)
+  const sessionId = event.context.sessionId
+  if (!sessionId) return
+  // replaceUserSession re-seals without the clear hook, so the row stays open.
+  await replaceUserSession(event, { user, loggedInAt: session.loggedInAt, secure: { sessionId } })
 }
 
 /** Ends one session (no-op when already ended). */

@@ -1,16 +1,9 @@
 import { describe, expect, it } from 'vitest'
 import { as, call, signIn, unique } from '../support/api'
 import { auditRows, testDb } from '../support/db'
+import { newUser } from '../support/factories'
 
 // Server-side sessions: the cookie names a session row, and ending the row ends the session wherever the cookie is.
-async function newUser(roles: string[] = ['analyst']) {
-  const email = `${unique('s')}@emberline.test`
-  const password = 'quartz lantern meadow'
-  const res = await call('POST', '/api/admin/users', { cookie: await as('admin'), body: { email, name: 'Session Person', roles, password } })
-  expect(res.status).toBe(201)
-  return { id: res.body.id as string, email, password }
-}
-
 describe('sessions', () => {
   it('lists a user\'s open sessions, marks this one, and ends another on request', async () => {
     const u = await newUser()

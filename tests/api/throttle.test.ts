@@ -1,20 +1,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { as, baseURL, call, signIn, unique } from '../support/api'
+import { baseURL, call, signIn } from '../support/api'
 import { auditRows, testDb } from '../support/db'
+import { newUser } from '../support/factories'
 import { startServer } from '../support/server-process'
 import type { ServerProcess } from '../support/server-process'
 
 // The password throttle (server/utils/throttle.ts; OWASP ASVS 4.0.3 V2.2.1): atomic under concurrency, the hash never
 // computed for a refused attempt, and no stranger able to keep the owner out. Each attempt that reaches the hash is
 // one row in login_attempts (written before the hash is computed), so those rows count the hashes.
-async function newUser(roles: string[] = ['analyst']) {
-  const email = `${unique('t')}@emberline.test`
-  const password = 'amber quarry lighthouse'
-  const res = await call('POST', '/api/admin/users', { cookie: await as('admin'), body: { email, name: 'Throttle Person', roles, password } })
-  expect(res.status).toBe(201)
-  return { id: res.body.id as string, email, password }
-}
-
 async function hashedAttempts(email: string, purpose?: string) {
   const { rows } = await testDb().query('select count(*)::int as n from login_attempts where email = $1 and ($2::text is null or purpose = $2)', [email, purpose ?? null])
   return rows[0].n as number

@@ -39,3 +39,11 @@ export function sampleRun(massG: number, heatingValueJPerG = 26454, extra: Recor
 export async function addRun(planId: string, body: Record<string, unknown>, cookie?: string) {
   return call('POST', `/api/plans/${planId}/runs`, { cookie: cookie ?? await as('analyst'), body })
 }
+
+/** A fresh user made by the admin, with a password strong enough for the server's rule. */
+export async function newUser(roles: string[] = ['analyst'], password = 'quartz lantern meadow', name = 'Test Person') {
+  const email = `${unique('u')}@emberline.test`
+  const res = await call('POST', '/api/admin/users', { cookie: await as('admin'), body: { email, name, roles, password } })
+  expect(res.status).toBe(201)
+  return { id: res.body.id as string, email, password }
+}
