@@ -5,6 +5,8 @@ const HEALTH = '/api/health'
 
 export default defineEventHandler((event) => {
   if ((event.method === 'GET' || event.method === 'HEAD') && event.path.split('?')[0] === HEALTH) return
+  // A request this server makes to itself (server-side rendering, error pages) is not a client's.
+  if ('__unenv__' in event.node.req) return
   const site = siteOrigins()
   const scheme = new URL(site.origin).protocol.replace(':', '')
   const host = requestedHost(event, scheme)

@@ -56,6 +56,7 @@ function rawRequest(path: string, headers: Record<string, string>, method = 'GET
 describe('body limit', () => {
   it('cuts off a 100 MB chunked sign-in body without Content-Length at the ceiling, answering 413, and stays responsive', async () => {
     const streaming = streamChunked('/api/auth/login', { 'content-type': 'application/json' }, 100 * 1024 * 1024)
+    streaming.catch(() => {}) // awaited below; this only keeps an early failure from counting as unhandled
     const health = await fetch(`${baseURL()}/api/health`)
     expect(health.status).toBe(200)
     const res = await streaming
@@ -82,6 +83,17 @@ describe('body limit', () => {
     const csv = `sample_code,material,mass_g,heating_value_j_per_g,fuse_wire,fuse_length_cm\n${'A-1,,1.0,26454,nichrome,10\n'.repeat(8000)}`
     const big = await call('POST', `/api/plans/${plan.id}/import`, { cookie: await as('analyst'), body: { csv } })
     expect(big.status).not.toBe(413)
+  })
+})
+
+describe('bodies the server never reads', () => {
+  it('answers a body sent to a page, to an unknown route or with a GET, instead of waiting on it', async () => {
+    const cookie = await as('admin')
+    const body = { reason: 'try' }
+    expect((await call('POST', '/api/nothing-here', { cookie, body })).status).toBe(404)
+    expect((await call('POST', '/plans', { cookie, body })).status).toBeLessThan(500)
+    const get = await rawRequest('/api/settings', { 'cookie': cookie, 'content-type': 'application/json', 'content-length': String(200 * 1024) })
+    expect(get.status).toBe(413)
   })
 })
 
