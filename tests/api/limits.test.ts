@@ -14,7 +14,7 @@ interface RawReply { status: number, body: string, sentBytes: number }
 function streamChunked(path: string, headers: Record<string, string>, totalBytes: number): Promise<RawReply> {
   const url = new URL(baseURL())
   return new Promise((resolve, reject) => {
-    const req = http.request({ host: url.hostname, port: url.port, path, method: 'POST', headers: { ...headers, 'transfer-encoding': 'chunked' } })
+    const req = http.request({ host: url.hostname, port: url.port, path, method: 'POST', agent: false, headers: { ...headers, 'transfer-encoding': 'chunked' } })
     let sent = 0
     let answered = false
     req.on('response', (res) => {
@@ -43,7 +43,7 @@ function streamChunked(path: string, headers: Record<string, string>, totalBytes
 function rawRequest(path: string, headers: Record<string, string>, method = 'GET'): Promise<{ status: number, body: string }> {
   const url = new URL(baseURL())
   return new Promise((resolve, reject) => {
-    const req = http.request({ host: url.hostname, port: url.port, path, method, headers }, (res) => {
+    const req = http.request({ host: url.hostname, port: url.port, path, method, headers, agent: false }, (res) => {
       let body = ''
       res.on('data', (d: Buffer) => { body += d.toString() })
       res.on('end', () => resolve({ status: res.statusCode ?? 0, body }))
