@@ -6,8 +6,9 @@ import type { IncomingMessage, ServerResponse } from 'node:http'
 import type { H3Event } from 'h3'
 
 // After a refusal the rest of the body is read and thrown away, so that the client, still sending, gets to read the
-// 413: until the answer is written, then for at most these bounds more, after which the connection is cut. (A
-// `Connection: close` header would make Node reset the connection at once, before a still-sending client reads.)
+// 413: until the answer is written, then for at most these bounds more, after which a connection still sending is cut.
+// A body that ends within them leaves the connection open for the next request. (A `Connection: close` header, or
+// closing our side, makes clients that are still sending, or that reuse the connection, fail before they read.)
 const DRAIN_BYTES = 4 * 1024 * 1024
 const DRAIN_MS = 2_000
 const DRAIN_MAX_MS = 10_000
@@ -29,8 +30,6 @@ function discardRest(req: IncomingMessage, res: ServerResponse) {
   timer.unref?.()
   res.once('finish', () => {
     answered = true
-    // Half-close after the answer: the client reads it and will not send another request on this connection.
-    req.socket?.end()
     clearTimeout(timer)
     timer = setTimeout(stop, DRAIN_MS)
     timer.unref?.()
