@@ -84,7 +84,7 @@ describe('body limit', () => {
         expect(res.status, `${method} ${type}`).toBe(413)
       }
     }
-    const chunked = await streamChunked('/api/vessels', { 'content-type': 'multipart/form-data; boundary=abc', cookie }, 8 * 1024 * 1024)
+    const chunked = await streamChunked('/api/vessels', { 'content-type': 'multipart/form-data; boundary=abc', cookie }, 256 * 1024)
     expect(chunked.status).toBe(413)
     // The route's own larger ceiling applies to a plan import (1 MB of CSV), and a small body is read as before.
     const plan = await newPlan((await newVessel()).id)
