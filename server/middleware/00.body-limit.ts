@@ -2,47 +2,40 @@
 // up to the route's ceiling (server/utils/body-limit.ts) and handed to the route's parser; a declared Content-Length
 // above the ceiling is refused before reading, and a chunked body is cut off as soon as it passes the ceiling.
 // Runs before every other middleware (file order), so nothing parses an unbounded body.
-import type { IncomingMessage, ServerResponse } from 'node:http'
+import type { IncomingMessage } from 'node:http'
 import type { H3Event } from 'h3'
 
-// After a refusal the rest of the body is read and thrown away, so that the client, still sending, gets to read the
-// 413: until the answer is written, then for at most these bounds more, after which a connection still sending is cut.
-// A body that ends within them leaves the connection open for the next request. (A `Connection: close` header, or
-// closing our side, makes clients that are still sending, or that reuse the connection, fail before they read.)
-const DRAIN_BYTES = 4 * 1024 * 1024
-const DRAIN_MS = 2_000
-const DRAIN_MAX_MS = 10_000
+// Before a refusal is answered, the rest of the body is read and thrown away (never kept), up to these bounds: a body
+// that ends within them gets a clean 413 on a connection that stays open. Answering while the client is still sending
+// makes Node close the connection under it, and the client may fail on its next write before it reads the answer; so a
+// body still coming past the bounds gets the 413 with the connection closed.
+const DRAIN_BYTES = 8 * 1024 * 1024
+const DRAIN_MS = 3_000
 
-function discardRest(req: IncomingMessage, res: ServerResponse) {
-  let drained = 0
-  let answered = false
-  const stop = () => {
-    clearTimeout(timer)
-    req.off('data', onData)
-    if (!req.complete) req.socket?.destroy()
-  }
-  const onData = (chunk: Buffer) => {
-    if (!answered) return
-    drained += chunk.length
-    if (drained > DRAIN_BYTES) stop()
-  }
-  let timer = setTimeout(stop, DRAIN_MAX_MS)
-  timer.unref?.()
-  res.once('finish', () => {
-    answered = true
-    clearTimeout(timer)
-    timer = setTimeout(stop, DRAIN_MS)
+/** Reads and discards the rest of the body; true when it ended within the bounds. */
+function discardRest(req: IncomingMessage): Promise<boolean> {
+  if (req.complete) return Promise.resolve(true)
+  return new Promise((resolve) => {
+    let drained = 0
+    const finish = (ended: boolean) => {
+      clearTimeout(timer)
+      req.off('data', onData).off('end', onEnd).off('error', onEnd)
+      resolve(ended)
+    }
+    const onData = (chunk: Buffer) => {
+      drained += chunk.length
+      if (drained > DRAIN_BYTES) finish(false)
+    }
+    const onEnd = () => finish(req.complete)
+    const timer = setTimeout(() => finish(false), DRAIN_MS)
     timer.unref?.()
+    req.on('data', onData).once('end', onEnd).once('error', onEnd)
+    req.resume()
   })
-  req.on('data', onData).once('end', () => {
-    clearTimeout(timer)
-    req.off('data', onData)
-  })
-  req.resume()
 }
 
-function tooLarge(event: H3Event, limit: number, what: string) {
-  discardRest(event.node.req, event.node.res)
+async function tooLarge(event: H3Event, limit: number, what: string) {
+  if (!await discardRest(event.node.req)) setResponseHeader(event, 'Connection', 'close')
   return createError({
     statusCode: 413,
     message: `The request body is larger than the ${formatBytes(limit)} accepted for ${what}. Nothing was changed.`,
@@ -90,11 +83,11 @@ export default defineEventHandler(async (event) => {
   if (!chunked && (length === undefined || length.trim() === '0')) return
   const { limit, what } = await bodyCeiling(event)
   const declared = Number(length)
-  if (length !== undefined && Number.isFinite(declared) && declared > limit) throw tooLarge(event, limit, what)
+  if (length !== undefined && Number.isFinite(declared) && declared > limit) throw await tooLarge(event, limit, what)
   // Nothing parses the body of a GET or HEAD; it is never buffered here.
   if (!PAYLOAD_METHODS.has(event.method)) return
   const body = await readLimited(req, limit)
-  if (!body) throw tooLarge(event, limit, what)
+  if (!body) throw await tooLarge(event, limit, what)
   // h3's body readers (readBody, readRawBody, readMultipartFormData) take this buffer instead of the stream.
   event._requestBody = body as unknown as BodyInit
 })
