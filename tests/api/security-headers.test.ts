@@ -109,6 +109,8 @@ describe('security headers', () => {
     expect(res.res.status).toBe(200)
     expectBaseline(res.res.headers, 'attachment')
     expect(res.res.headers.get('content-security-policy')).toMatch(/sandbox/)
+    // A private file: never stored by a browser or proxy.
+    expect(res.res.headers.get('cache-control')).toBe('no-store')
   })
 
   it('never sends HSTS because a client claims X-Forwarded-Proto: https without a trusted proxy', async () => {
