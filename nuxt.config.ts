@@ -31,7 +31,7 @@ export default defineNuxtConfig({
     },
     smtp: { host: '127.0.0.1', port: 2525, secure: false, user: '', pass: '', from: 'Emberline <no-reply@emberline.test>' },
     storageDir: '',
-    // siteUrl: the address people open Emberline at (NUXT_PUBLIC_SITE_URL), for absolute links in e-mails.
+    // The public origin (NUXT_PUBLIC_SITE_URL): the only Host answered, the only Origin accepted for changes, and the base of links in e-mails.
     public: { labName: '', siteUrl: 'http://localhost:3000' },
   },
   // Security headers (issue 7). nuxt-security puts a fresh nonce on every script Nuxt renders and sends the page's
@@ -51,9 +51,9 @@ export default defineNuxtConfig({
     // Same origin only: no CORS headers, so a browser never lets another site read an answer.
     corsHandler: false,
     allowedMethodsRestricter: false,
-    // JSON bodies up to 4 MB (a 1 MB CSV import, escaped); multipart uploads are checked by the upload route against
-    // the lab policy's per-file limit, which an admin may raise, so this limiter leaves them alone.
-    requestSizeLimiter: { maxRequestSizeInBytes: 4_194_304, maxUploadFileRequestInBytes: Number.MAX_SAFE_INTEGER, throwError: true },
+    // Off: it trusts Content-Length and skips multipart types. server/middleware/00.body-limit.ts bounds every body on
+    // the stream with per-route ceilings (server/utils/body-limit.ts).
+    requestSizeLimiter: false,
     hidePoweredBy: true,
     headers: {
       contentSecurityPolicy: {

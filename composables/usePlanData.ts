@@ -17,6 +17,8 @@ export interface Run {
 export interface PlanDetail {
   id: string, name: string, vesselId: string, fillPressureMPa: number, note: string, createdBy: string, createdByName: string, submittedAt: string | null, createdAt: string
   runs: Run[], vessels: VesselSummary[]
+  /** All runs of the plan; `runs` holds the page from `runsOffset`. */
+  runsTotal: number, runsOffset: number, draftCount: number
 }
 export interface MaterialOption {
   id: string, name: string, category: string, heatingValueJPerG: number | null, composition: unknown, compositionBasis: string | null

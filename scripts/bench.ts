@@ -222,6 +222,28 @@ async function mixedLoad(lab: LargeLab, analyst: string, supervisor: string, ass
   return { requests: times.length, errors, p50: median(times), p95: p95(times), rps: times.length / MIXED_SECONDS }
 }
 
+/** `/api/health` one request at a time, alone and while 20 wrong sign-ins for one account arrive at once. */
+async function healthDuringBurst() {
+  const health = async () => {
+    const t0 = performance.now()
+    const res = await fetch(`${BASE}/api/health`)
+    await res.arrayBuffer()
+    return performance.now() - t0
+  }
+  const quiet: number[] = []
+  for (let i = 0; i < 30; i++) quiet.push(await health())
+  // An address that is no account: the throttle and the equalising hash work exactly as for a real one.
+  const email = `bench-burst-${Date.now().toString(36)}@emberline.test`
+  let running = true
+  const burst = Promise.all(Array.from({ length: 20 }, (_, i) => fetch(`${BASE}/api/auth/login`, {
+    method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password: `wrong-${i}` }),
+  }).then(r => r.status))).finally(() => { running = false })
+  const during: number[] = []
+  while (running || during.length < 20) during.push(await health())
+  const statuses = await burst
+  return { quiet: median(quiet), during: median(during), p95: p95(during), n: during.length, hashed: statuses.filter(s => s === 401).length, throttled: statuses.filter(s => s === 429).length }
+}
+
 async function main() {
   const loadBefore = loadavg()[0] ?? 0
   log('assessCharge in this Node process')
@@ -271,6 +293,8 @@ async function main() {
   const pages = ['/', '/vessels', `/vessels/${lab.vesselId}`, '/plans', `/plans/${lab.planId}`, '/materials', '/approvals', '/audit']
   const weights: [string, Awaited<ReturnType<typeof pageWeight>>][] = []
   for (const page of pages) weights.push([page, await pageWeight(page === '/audit' || page === '/approvals' ? supervisor : cookie, page)])
+  log('/api/health during a burst of 20 wrong sign-ins')
+  const burst = await healthDuringBurst()
   const rss = peakRssMB()
 
   const conditions = `${CONNECTIONS} connections, ${SECONDS} s in alternating slices, Node ${process.version}, fetch (undici) keep-alive`
@@ -283,6 +307,7 @@ async function main() {
     ['Quick check page, client JS', `${fmt(weight.gzipKB, 1)} kB gzip`, `${weight.files} files (${fmt(weight.rawKB, 0)} kB raw) from script and modulepreload tags; formula and SMILES libraries load later, on first use`],
     ...routes.map(r => [`Large lab: ${r.name}`, `${fmt(r.p50, 1)} ms median, ${fmt(r.p95, 1)} ms p95`, `${r.n} requests one at a time; 50 vessels, 100,000 firings, 20,000 materials, 200,000 audit rows (scripts/bench-seed.ts)`]),
     ['Large lab: mixed load', `${fmt(mixed.p95, 0)} ms p95, ${mixed.errors} errors`, `${MIXED_USERS} concurrent users for ${MIXED_SECONDS} s over 8 routes (fleet, vessel, firings, plan, assess, materials, approvals, audit): ${fmt(mixed.requests)} requests, ${fmt(mixed.rps)} req/s, median ${fmt(mixed.p50, 0)} ms`],
+    ['`GET /api/health` during 20 concurrent wrong sign-ins', `${fmt(burst.during, 1)} ms median, ${fmt(burst.p95, 1)} ms p95`, `${burst.n} requests one at a time while the burst ran (${fmt(burst.quiet, 1)} ms median alone); ${burst.hashed} attempts reached the password hash, ${burst.throttled} were refused with 429 before it; aim < 50 ms median`],
     ['Peak server memory (VmHWM)', rss === null ? 'not measured' : `${fmt(rss, 0)} MB`, 'resident set high-water mark of the server process over the whole bench'],
     ...weights.map(([page, w]) => [`Client JS of \`${page.replace(/[0-9a-f-]{36}/, ':id')}\``, `${fmt(w.gzipKB, 1)} kB gzip`, `${w.files} files (${fmt(w.rawKB, 0)} kB raw) loaded at once`]),
   ]

@@ -9,4 +9,5 @@ if [ -z "${NUXT_SMTP_HOST:-}" ]; then
   export NUXT_SMTP_HOST=127.0.0.1 NUXT_SMTP_PORT="${EMBERLINE_FAKE_SMTP_PORT:-2525}"
 fi
 export PORT="${PORT:-3000}"
+export NUXT_PUBLIC_SITE_URL="${NUXT_PUBLIC_SITE_URL:-http://localhost:$PORT}"
 exec npx nuxt dev --port "$PORT"

@@ -11,6 +11,8 @@ if [ -z "${NUXT_SMTP_HOST:-}" ]; then
 fi
 ensure_build
 export PORT="${PORT:-3000}"
+# The public origin: requests naming another host are refused; set it to the address people use on the LAN.
+export NUXT_PUBLIC_SITE_URL="${NUXT_PUBLIC_SITE_URL:-http://localhost:$PORT}"
 export NITRO_HOST="${HOST:-0.0.0.0}"
 cat <<MSG
 

@@ -50,17 +50,33 @@ export const auditLog = pgTable('audit_log', {
   index('audit_log_actor_idx').on(t.actorId, t.at),
 ])
 
-// Sign-in attempts, kept in the database so throttling holds across several app instances.
+// Password checks (sign-in and signatures), kept in the database so throttling holds across several app instances.
+// A row is written before the hash is verified (success null while it runs), so concurrent attempts count at once.
 export const loginAttempts = pgTable('login_attempts', {
   id: id(),
   email: text('email').notNull(),
   ip: text('ip').notNull(),
-  success: boolean('success').notNull(),
+  success: boolean('success'),
+  // 'sign-in' or 'signature': both count towards the same throttle.
+  purpose: text('purpose').notNull().default('sign-in'),
   at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
 }, t => [
   index('login_attempts_email_idx').on(t.email, t.at),
   index('login_attempts_ip_idx').on(t.ip, t.at),
 ])
+
+// Server-side sessions: the sealed cookie names a row; ending the row ends the session wherever the cookie was copied.
+export const userSessions = pgTable('user_sessions', {
+  id: id(),
+  userId: uuid('user_id').notNull().references(() => users.id),
+  createdAt: createdAt(),
+  lastSeenAt: timestamp('last_seen_at', { withTimezone: true }).notNull().defaultNow(),
+  userAgent: text('user_agent'),
+  ip: text('ip'),
+  revokedAt: timestamp('revoked_at', { withTimezone: true }),
+  // sign-out, expired, password-change, password-reset, role-change, disabled, ended-by-user, ended-by-admin
+  revokedReason: text('revoked_reason'),
+}, t => [index('user_sessions_user_idx').on(t.userId, t.revokedAt)])
 
 // ─── Vessels (DESIGN.md §5) ───────────────────────────────────────────────────────────────────
 // Counters live on the vessel row and are incremented by the database in the firing's transaction.
@@ -198,14 +214,18 @@ export const firings = pgTable('firings', {
   id: id(),
   runId: uuid('run_id').notNull().unique().references(() => runs.id),
   vesselId: uuid('vessel_id').notNull().references(() => vessels.id),
-  idempotencyKey: text('idempotency_key').notNull().unique(),
+  // Unique per user (index below): one person's key never collides with, or reveals, another's.
+  idempotencyKey: text('idempotency_key').notNull(),
   outcome: text('outcome').notNull(),
   weighedMassG: doublePrecision('weighed_mass_g').notNull(),
   data: jsonb('data').notNull(),
   answer: jsonb('answer').notNull(),
   firedBy: uuid('fired_by').notNull().references(() => users.id),
   firedAt: timestamp('fired_at', { withTimezone: true }).notNull().defaultNow(),
-}, t => [index('firings_vessel_idx').on(t.vesselId, t.firedAt)])
+}, t => [
+  index('firings_vessel_idx').on(t.vesselId, t.firedAt),
+  uniqueIndex('firings_user_idempotency_key_idx').on(t.firedBy, t.idempotencyKey),
+])
 
 // ─── Vessel servicing ────────────────────────────────────────────────────────────────────────
 export const services = pgTable('services', {

@@ -2,35 +2,14 @@
 // with 403 when the browser says it comes from another site (Sec-Fetch-Site: cross-site) or names an Origin other
 // than this server's own. Callers that send neither (scripts, server-to-server, tests) pass: a browser always sends
 // Origin on such requests, and the session cookie (SameSite=Lax) is the second line.
-import type { H3Event } from 'h3'
-
 const CHANGES = new Set(['POST', 'PUT', 'PATCH', 'DELETE'])
 
-const first = (v: string | undefined) => v?.split(',')[0]?.trim() || undefined
-
-/**
- * This server's origin as the browser sees it: scheme and host of the request, or — only behind a proxy the
- * admin trusts (EMBERLINE_TRUST_PROXY=1) — those the proxy forwards (X-Forwarded-Proto, X-Forwarded-Host).
- */
-function ownOrigin(event: H3Event): string | null {
-  const trustProxy = process.env.EMBERLINE_TRUST_PROXY === '1'
-  const tls = !!(event.node.req.socket as { encrypted?: boolean } | undefined)?.encrypted
-  const proto = (trustProxy && first(getRequestHeader(event, 'x-forwarded-proto'))) || (tls ? 'https' : 'http')
-  const host = (trustProxy && first(getRequestHeader(event, 'x-forwarded-host'))) || getRequestHeader(event, 'host')
-  if (!host) return null
-  try {
-    return new URL(`${proto.toLowerCase()}://${host}`).origin
-  }
-  catch {
-    return null
-  }
-}
-
-function sameOrigin(origin: string, own: string | null): boolean {
-  if (!own || origin === 'null') return false
+/** The Origin is the configured public origin (or a loopback spelling of it, server/utils/site.ts). */
+function sameOrigin(origin: string): boolean {
+  if (origin === 'null') return false
   try {
     // URL normalises case and default ports (https://x:443 is https://x).
-    return new URL(origin).origin === own
+    return siteOrigins().origins.has(new URL(origin).origin)
   }
   catch {
     return false
@@ -43,7 +22,7 @@ export default defineEventHandler((event) => {
   const origin = getRequestHeader(event, 'origin')?.trim()
   let why: string | null = null
   if (site === 'cross-site') why = 'Sec-Fetch-Site: cross-site'
-  else if (origin !== undefined && !sameOrigin(origin, ownOrigin(event))) why = `Origin ${origin.slice(0, 200)}`
+  else if (origin !== undefined && !sameOrigin(origin)) why = `Origin ${origin.slice(0, 200)}`
   if (why) {
     throw createError({
       statusCode: 403,

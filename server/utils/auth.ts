@@ -1,5 +1,5 @@
 import type { H3Event } from 'h3'
-import { eq } from 'drizzle-orm'
+import { eq, sql } from 'drizzle-orm'
 import type { Role } from '#shared/types/roles'
 
 export interface AuthedUser {
@@ -13,26 +13,37 @@ export interface AuthedUser {
 export const PUBLIC_API_ROUTES = new Set(['POST /api/auth/login', 'GET /api/_auth/session', 'DELETE /api/_auth/session', 'GET /api/health', 'HEAD /api/health'])
 
 /**
- * Resolves the signed-in user from the sealed cookie and the database: a disabled user, a user
- * whose sessions were ended (epoch raised) or an idle/expired session stops working at once.
+ * Resolves the signed-in user from the sealed cookie and the database: the cookie names a session row, which must be
+ * open (not ended), not idle or older than the policy allows, and belong to an active user. Anything else ends it.
  */
 export async function loadSessionUser(event: H3Event): Promise<AuthedUser | null> {
   if (event.context.user !== undefined) return event.context.user
   const session = await getUserSession(event)
-  if (!session.user) return (event.context.user = null)
-  const [row] = await useDb().select().from(schema.users).where(eq(schema.users.id, session.user.id))
+  const sessionId = session.secure?.sessionId
+  if (!session.user || !sessionId) {
+    if (session.user) await clearUserSession(event)
+    return (event.context.user = null)
+  }
+  const db = useDb()
+  const [found] = await db.select({ s: schema.userSessions, u: schema.users }).from(schema.userSessions)
+    .innerJoin(schema.users, eq(schema.users.id, schema.userSessions.userId))
+    .where(eq(schema.userSessions.id, sessionId))
   const policy = await getPolicy()
   const now = Date.now()
-  const idleMs = policy.sessionIdleMinutes * 60_000
-  const absoluteMs = policy.sessionAbsoluteHours * 3_600_000
-  const expired = now - (session.lastSeenAt ?? 0) > idleMs || now - (session.loggedInAt ?? 0) > absoluteMs
-  if (!row || !row.active || row.sessionEpoch !== session.epoch || expired) {
+  const idle = found ? now - found.s.lastSeenAt.getTime() > policy.sessionIdleMinutes * 60_000 : false
+  const tooOld = found ? now - found.s.createdAt.getTime() > policy.sessionAbsoluteHours * 3_600_000 : false
+  if (!found || found.s.revokedAt || !found.u.active || found.u.id !== session.user.id || idle || tooOld) {
+    if (found && !found.s.revokedAt) await endSession(db, sessionId, found.u.active ? 'expired' : 'disabled')
     await clearUserSession(event)
     return (event.context.user = null)
   }
+  const row = found.u
   const user: AuthedUser = { id: row.id, email: row.email, name: row.name, roles: row.roles as Role[] }
-  // Slide the idle window, at most once a minute, so that a busy page does not rewrite the cookie each request.
-  if (now - session.lastSeenAt > 60_000) await setUserSession(event, { user, epoch: session.epoch, loggedInAt: session.loggedInAt, lastSeenAt: now })
+  // Slide the idle window in the database, at most once a minute, so that a busy page does not write at each request.
+  if (now - found.s.lastSeenAt.getTime() > 60_000) {
+    await db.update(schema.userSessions).set({ lastSeenAt: sql`now()` }).where(eq(schema.userSessions.id, sessionId))
+  }
+  event.context.sessionId = sessionId
   return (event.context.user = user)
 }
 

@@ -41,7 +41,7 @@ type Outcome =
 export async function recordFiring(act: Act, id: string, key: string, body: FiringBody, requestHash: string): Promise<FiringRecord> {
   const { user } = act
   const db = useDb()
-  const first = await firingReplay(db, key, requestHash)
+  const first = await firingReplay(db, user.id, key, requestHash)
   if (first) return { replayed: true, answer: first }
   const policy = await getPolicy()
   if (body.weighedMassG < policy.minSampleMassG) {
@@ -54,7 +54,7 @@ export async function recordFiring(act: Act, id: string, key: string, body: Firi
     outcome = await db.transaction(async (tx): Promise<Outcome> => {
       const run = await findRunOr404(tx, id, true)
       // A twin request with this key may have committed while this one waited for the run.
-      const twin = await firingReplay(tx, key, requestHash)
+      const twin = await firingReplay(tx, user.id, key, requestHash)
       if (twin) return { kind: 'replay', answer: twin }
       const refusal = runActRefusal('fire', run.status, run.sampleCode)
       if (refusal) throw new Refusal('conflict', `${refusal} Only a run that is ready to fire can be recorded.`, { reason: 'run-status', status: run.status })
@@ -196,8 +196,8 @@ export async function recordFiring(act: Act, id: string, key: string, body: Firi
   }
   catch (err) {
     // Two requests with one key at the same instant: the loser answers with the winner's answer.
-    if (isUniqueViolation(err, 'firings_idempotency_key_unique')) {
-      const winner = await firingReplay(db, key, requestHash)
+    if (isUniqueViolation(err, 'firings_user_idempotency_key_idx')) {
+      const winner = await firingReplay(db, user.id, key, requestHash)
       if (winner) return { replayed: true, answer: winner }
     }
     if (isUniqueViolation(err, 'firings_run_id_unique')) {

@@ -1,7 +1,7 @@
 // Recording a firing: the request, its idempotency key and the weighed charge (the act itself: firing-record.ts).
 import { createHash } from 'node:crypto'
 import type { H3Event } from 'h3'
-import { eq } from 'drizzle-orm'
+import { and, eq } from 'drizzle-orm'
 import { z } from 'zod'
 import { FIRING_OUTCOMES } from '#shared/domain/vessel-lifecycle'
 import type { FiringOutcome } from '#shared/domain/vessel-lifecycle'
@@ -63,9 +63,10 @@ export interface FiringAnswer {
   message: string
 }
 
-/** The stored first answer for this key, or null; refused when the key was used for another request. */
-export async function firingReplay(db: Db | Tx, key: string, requestHash: string): Promise<FiringAnswer | null> {
-  const [row] = await db.select({ answer: schema.firings.answer, data: schema.firings.data }).from(schema.firings).where(eq(schema.firings.idempotencyKey, key))
+/** The stored first answer for this user's key, or null; 422 when the key was used for another request. Keys are scoped to the user who sent them. */
+export async function firingReplay(db: Db | Tx, userId: string, key: string, requestHash: string): Promise<FiringAnswer | null> {
+  const [row] = await db.select({ answer: schema.firings.answer, data: schema.firings.data }).from(schema.firings)
+    .where(and(eq(schema.firings.firedBy, userId), eq(schema.firings.idempotencyKey, key)))
   if (!row) return null
   if ((row.data as { requestHash?: string }).requestHash !== requestHash) {
     throw new Refusal('invalid', 'This Idempotency-Key was already used for a different firing request; use a new key for a new firing.', {

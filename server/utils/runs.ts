@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto'
-import { asc, eq, inArray, max } from 'drizzle-orm'
+import { asc, count, eq, inArray, max } from 'drizzle-orm'
 import { z } from 'zod'
 import { assess, chargeInputSchema, ChargeInputError } from '#shared/domain/assessment'
 import type { Assessment, ChargeComponentInput } from '#shared/domain/assessment'
@@ -144,11 +144,32 @@ export async function signaturesFor(db: Db | Tx, runIds: string[]) {
   return map
 }
 
-/** Re-authentication for an electronic signature: the signer's own password, checked again (audited on failure). */
+/** 422 naming `field` when adding `adding` runs would take the plan past the policy's ceiling (maxRunsPerPlan). */
+export async function assertPlanRoom(tx: Db | Tx, planId: string, adding: number, policy: LabPolicy, field: string) {
+  const [row] = await tx.select({ n: count() }).from(schema.runs).where(eq(schema.runs.planId, planId))
+  const n = row?.n ?? 0
+  if (n + adding > policy.maxRunsPerPlan) {
+    invalidInput([{ path: field, message: `the plan holds ${n} runs and the lab policy allows at most ${policy.maxRunsPerPlan} per plan${adding > 1 ? ` (this adds ${adding})` : ''}: start a new plan for the rest` }])
+  }
+}
+
+/**
+ * Re-authentication for an electronic signature: the signer's own password, checked again under the same throttle as
+ * sign-in (server/utils/throttle.ts: a throttled attempt answers 429 without computing the hash); audited on failure.
+ */
 export async function verifySigner(event: Parameters<typeof requireUser>[0], userId: string, password: string, entity: string, entityId: string) {
   const db = useDb()
   const [u] = await db.select().from(schema.users).where(eq(schema.users.id, userId))
-  if (!u || !await verifyPassword(u.passwordHash, password)) {
+  let ok: boolean
+  try {
+    ok = !!u && await checkPasswordThrottled(event, u.email, 'signature', u.passwordHash, password)
+  }
+  catch (err) {
+    if (!(err instanceof ThrottledError)) throw err
+    await db.transaction(tx => audit(tx, event, { action: 'signature.throttled', entity, entityId, newValues: { rule: err.rule, retryAfterS: err.retryAfterS } }))
+    throw throttledAnswer(event, err, 'signing with your password')
+  }
+  if (!u || !ok) {
     await db.transaction(tx => audit(tx, event, { action: 'signature.password-wrong', entity, entityId }))
     throw createError({ statusCode: 403, message: 'The password is wrong: nothing was signed.', data: { fields: [{ path: 'password', message: 'wrong password' }] } })
   }

@@ -18,12 +18,6 @@ export interface Signer extends Act {
   sign: (tx: Tx, s: { entity: string, entityId: string, meaning: string, reason: string, boundHash: string }) => Promise<typeof schema.signatures.$inferSelect>
 }
 
-/** A fresh session after a signature: the signature renews the sign-in time it proved. */
-export async function renewSessionAfterSignature(event: H3Event) {
-  const session = await getUserSession(event)
-  await replaceUserSession(event, { user: session.user, epoch: session.epoch, loggedInAt: session.loggedInAt, lastSeenAt: Date.now() })
-}
-
 /**
  * Every electronic signature goes through here: separation of duties, re-authentication with the signer's own
  * password, the act itself (which writes the signature row and its audit row in one transaction), session renewal.
@@ -40,7 +34,8 @@ export async function signWithPassword<T>(event: H3Event, user: AuthedUser, req:
     },
   }
   const result = await answering(() => act(signer))
-  await renewSessionAfterSignature(event)
+  // A fresh cookie for the same session row after a signature.
+  await renewSession(event)
   return result
 }
 

@@ -46,6 +46,7 @@ export interface LabPolicy {
   minSampleMassG: number
   electrodeResistanceMaxOhm: number
   uploadMaxBytes: number
+  maxRunsPerPlan: number
   sessionIdleMinutes: number
   sessionAbsoluteHours: number
   displayUnit: SpecificEnergyUnit
@@ -89,6 +90,7 @@ export const DEFAULT_POLICY: LabPolicy = {
   minSampleMassG: 0.010,
   electrodeResistanceMaxOhm: 5,
   uploadMaxBytes: 10485760,
+  maxRunsPerPlan: 300,
   sessionIdleMinutes: 60,
   sessionAbsoluteHours: 12,
   displayUnit: 'J/g',
@@ -140,6 +142,7 @@ export const labPolicySchema = z
     minSampleMassG: positive().max(10),
     electrodeResistanceMaxOhm: positive().max(1000),
     uploadMaxBytes: count().max(1073741824),
+    maxRunsPerPlan: count().max(1000),
     sessionIdleMinutes: count().max(1440),
     sessionAbsoluteHours: count().max(168),
     displayUnit: z.enum(SPECIFIC_ENERGY_UNITS),
@@ -219,4 +222,5 @@ export const POLICY_DESCRIPTIONS: Readonly<Record<keyof LabPolicy, PolicyDescrip
   displayUnit: { label: 'Unit for calorific values', unit: '—', source: 'Conversion factors: NIST SP 811, Appendix B' },
   signedMassTolerancePct: { label: 'A signature covers a weighed sample mass up to this much above the signed mass', unit: '%', source: LAB },
   minSampleMassG: { label: 'Smallest sample mass accepted', unit: 'g', source: LAB },
+  maxRunsPerPlan: { label: 'Most runs in one plan', unit: 'runs', source: LAB },
 }

@@ -22,3 +22,8 @@ export const passwordResetSchema = z.object({ password: passwordSchema }).strict
 
 export type UserCreate = z.infer<typeof userCreateSchema>
 export type UserUpdate = z.infer<typeof userUpdateSchema>
+
+export const passwordChangeSchema = z.object({
+  currentPassword: z.string({ error: 'your current password' }).min(1, 'your current password').max(1024),
+  newPassword: passwordSchema,
+}).strict()

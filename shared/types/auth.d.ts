@@ -7,9 +7,11 @@ declare module '#auth-utils' {
     roles: Role[]
   }
   interface UserSession {
-    epoch: number
     loggedInAt: number
-    lastSeenAt: number
+  }
+  // Never sent to the browser's script: the server-side session row the cookie stands for.
+  interface SecureSessionData {
+    sessionId: string
   }
 }
 

@@ -40,14 +40,23 @@ describe('sign-in', () => {
     expect(await auditRows({ action: 'auth.login', entityId: u.id, since })).toHaveLength(1)
   })
 
-  it('throttles an account after 5 failures in 15 minutes with 429, even for the right password', async () => {
+  it('slows one address down after 3 wrong passwords, then refuses it for 15 minutes, even the right password', async () => {
     const u = await newUser()
-    for (let i = 0; i < 5; i++) {
-      expect((await call('POST', '/api/auth/login', { body: { email: u.email, password: `wrong-${i}` } })).status).toBe(401)
-    }
+    const wrong = (i: number) => call('POST', '/api/auth/login', { body: { email: u.email, password: `wrong-${i}` } })
+    for (let i = 0; i < 3; i++) expect((await wrong(i)).status).toBe(401)
+    // Back-off: the next try waits 2 s, the one after 4 s; the refused tries are not checked against the hash.
+    const early = await wrong(3)
+    expect(early.status).toBe(429)
+    expect(Number(early.headers.get('retry-after'))).toBeGreaterThanOrEqual(1)
+    expect(Number(early.headers.get('retry-after'))).toBeLessThanOrEqual(2)
+    await new Promise(r => setTimeout(r, 2_100))
+    expect((await wrong(4)).status).toBe(401)
+    await new Promise(r => setTimeout(r, 4_100))
+    expect((await wrong(5)).status).toBe(401)
     const blocked = await call('POST', '/api/auth/login', { body: { email: u.email, password: u.password } })
     expect(blocked.status).toBe(429)
-    expect(blocked.headers.get('retry-after')).toBeTruthy()
+    expect(Number(blocked.headers.get('retry-after'))).toBeGreaterThan(800)
+    expect(blocked.body.message).toMatch(/Too many wrong passwords/)
     // An admin's password reset lifts the throttle.
     const admin = await as('admin')
     expect((await call('POST', `/api/admin/users/${u.id}/password`, { cookie: admin, body: { password: 'another long password' } })).status).toBe(200)
@@ -81,14 +90,18 @@ describe('sign-in', () => {
     expect(rows[0].new_values.active).toBe(false)
   })
 
-  it('ends the session at sign-out', async () => {
+  it('ends the session at sign-out, also for a copy of the cookie', async () => {
     const u = await newUser()
     const res = await call('POST', '/api/auth/login', { body: { email: u.email, password: u.password } })
     const cookie = sessionCookie(res.headers)
+    expect((await call('GET', '/api/plans', { cookie })).status).toBe(200)
     const out = await call('POST', '/api/auth/logout', { cookie })
     expect(out.status).toBe(200)
     // The sealed cookie is replaced by an empty one; the browser drops the old one.
     expect(out.headers.getSetCookie().join(';')).toMatch(/emberline-session=/)
+    // A copy of the old cookie is refused: the session row has ended on the server.
+    expect((await call('GET', '/api/plans', { cookie })).status).toBe(401)
+    expect((await call('GET', '/api/settings', { cookie })).status).toBe(401)
   })
 
   it('lets an admin end all of a user\'s sessions', async () => {

@@ -14,7 +14,10 @@ describe('cross-site request protection', () => {
   it('refuses a change posted from another origin with 403, and changes nothing', async () => {
     const admin = await as('admin')
     const since = new Date()
-    for (const origin of ['https://evil.example', 'null', own().replace('127.0.0.1', 'localhost'), own().replace('http:', 'https:')]) {
+    // Another port or scheme of loopback is another origin; localhost and 127.0.0.1 on the configured port are the
+    // same server (NUXT_PUBLIC_SITE_URL on loopback accepts every loopback spelling of its port).
+    const otherPort = own().replace(/:(\d+)$/, (_, p: string) => `:${Number(p) + 1}`)
+    for (const origin of ['https://evil.example', 'null', otherPort, otherPort.replace('127.0.0.1', 'localhost'), own().replace('http:', 'https:')]) {
       const body = vesselBody()
       const res = await call('POST', '/api/vessels', { cookie: admin, body, headers: { origin } })
       expect(res.status, origin).toBe(403)
@@ -75,7 +78,7 @@ describe('cross-site request protection', () => {
 
   describe('behind a trusted reverse proxy (EMBERLINE_TRUST_PROXY=1)', () => {
     let server: ServerProcess
-    beforeAll(async () => { server = await startServer({ EMBERLINE_TRUST_PROXY: '1', EMBERLINE_REMINDERS: 'off' }) })
+    beforeAll(async () => { server = await startServer({ EMBERLINE_TRUST_PROXY: '1', EMBERLINE_REMINDERS: 'off', NUXT_PUBLIC_SITE_URL: 'https://lab.example' }) })
     afterAll(async () => { await server?.stop() })
 
     async function post(path: string, body: unknown, headers: Record<string, string>) {

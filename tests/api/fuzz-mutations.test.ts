@@ -31,14 +31,16 @@ const SAMPLE_ID = '00000000-0000-4000-8000-000000000000'
 
 // Body-less routes tell nothing under body fuzzing: logout would end the shared session, and the fleet check ignores
 // any body (it is refused to the wrong roles in route-matrix.test.ts and checked in reminders.test.ts).
-const SKIP = new Set(['POST /api/auth/logout', 'POST /api/admin/reminders/run'])
+// "Sign out everywhere else" takes no body and writes its audit row at each call.
+const SKIP = new Set(['POST /api/auth/logout', 'POST /api/admin/reminders/run', 'POST /api/account/sign-out-others'])
 // These ignore the body and act on the id alone, so a real id would rightly succeed: they get random ids only.
-const RANDOM_IDS_ONLY = new Set(['POST /api/admin/users/[id]/sign-out', 'POST /api/runs/[id]/duplicate'])
+const RANDOM_IDS_ONLY = new Set(['POST /api/admin/users/[id]/sign-out', 'POST /api/runs/[id]/duplicate', 'POST /api/account/sessions/[id]/end'])
 
 // One field each route knows, given a value no schema field accepts (arrays nested in arrays), so that no generated
 // object body can be valid by chance (a body whose fields are all optional would otherwise change the record).
 const POISON: Record<string, string> = {
   'POST /api/auth/login': 'email',
+  'POST /api/account/password': 'newPassword',
   'PATCH /api/settings': 'reason',
   'POST /api/assess': 'components',
   'POST /api/admin/users': 'email',

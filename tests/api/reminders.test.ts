@@ -16,7 +16,7 @@ interface Instance { url: string, proc: ChildProcess, log: () => string }
 /** A second (or third) app instance of the same build on the same database, as a lab running several would. */
 async function startInstance(env: Record<string, string>): Promise<Instance> {
   const port = String(4000 + Math.floor(Math.random() * 900))
-  const proc = spawn(process.execPath, [serverEntry], { cwd: root, env: { ...process.env, PORT: port, NITRO_HOST: '127.0.0.1', NODE_ENV: 'production', ...env }, stdio: ['ignore', 'pipe', 'pipe'] })
+  const proc = spawn(process.execPath, [serverEntry], { cwd: root, env: { ...process.env, PORT: port, NITRO_HOST: '127.0.0.1', NODE_ENV: 'production', NUXT_PUBLIC_SITE_URL: `http://127.0.0.1:${port}`, ...env }, stdio: ['ignore', 'pipe', 'pipe'] })
   let out = ''
   proc.stdout!.on('data', (d: Buffer) => { out += d.toString() })
   proc.stderr!.on('data', (d: Buffer) => { out += d.toString() })

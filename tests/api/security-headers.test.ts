@@ -1,7 +1,9 @@
 // Security headers on every kind of answer (issue 7; OWASP ASVS 4.0.3 V14.4 "HTTP Security Headers" as the yardstick):
 // pages, JSON, errors, downloads and static assets. CSP directives as defined by CSP Level 3 (W3C); HSTS by RFC 6797.
-import { describe, expect, it } from 'vitest'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { as, baseURL, call, unique } from '../support/api'
+import { startServer } from '../support/server-process'
+import type { ServerProcess } from '../support/server-process'
 
 async function get(path: string, headers: Record<string, string> = {}) {
   const res = await fetch(baseURL() + path, { headers, redirect: 'manual' })
@@ -107,16 +109,48 @@ describe('security headers', () => {
     expect(res.res.status).toBe(200)
     expectBaseline(res.res.headers, 'attachment')
     expect(res.res.headers.get('content-security-policy')).toMatch(/sandbox/)
+    // A private file: never stored by a browser or proxy.
+    expect(res.res.headers.get('cache-control')).toBe('no-store')
   })
 
-  it('sends HSTS when the request came over HTTPS (a TLS-terminating proxy says so), never over plain HTTP', async () => {
+  it('never sends HSTS because a client claims X-Forwarded-Proto: https without a trusted proxy', async () => {
     for (const path of ['/login', '/api/health', '/favicon.svg']) {
-      const https = await get(path, { 'x-forwarded-proto': 'https' })
-      // RFC 6797 §6.1: max-age in seconds; one year here.
-      expect(https.res.headers.get('strict-transport-security'), path).toBe('max-age=31536000; includeSubDomains')
-      const http = await get(path)
-      expect(http.res.headers.get('strict-transport-security'), path).toBeNull()
+      const claimed = await get(path, { 'x-forwarded-proto': 'https' })
+      expect(claimed.res.headers.get('strict-transport-security'), path).toBeNull()
     }
+  })
+
+  describe('behind a trusted TLS-terminating proxy (EMBERLINE_TRUST_PROXY=1)', () => {
+    let server: ServerProcess
+    beforeAll(async () => { server = await startServer({ EMBERLINE_TRUST_PROXY: '1', EMBERLINE_REMINDERS: 'off' }) })
+    afterAll(async () => { await server?.stop() })
+
+    it('sends HSTS when the proxy says the request came over HTTPS, never over plain HTTP', async () => {
+      for (const path of ['/login', '/api/health', '/favicon.svg']) {
+        const https = await fetch(server.baseURL + path, { headers: { 'x-forwarded-proto': 'https' }, redirect: 'manual' })
+        // RFC 6797 §6.1: max-age in seconds; one year here.
+        expect(https.headers.get('strict-transport-security'), path).toBe('max-age=31536000; includeSubDomains')
+        const http = await fetch(server.baseURL + path, { redirect: 'manual' })
+        expect(http.headers.get('strict-transport-security'), path).toBeNull()
+      }
+    })
+  })
+
+  it('marks every answer that depends on who asks Cache-Control: no-store; built assets keep long caching', async () => {
+    const admin = await as('admin')
+    for (const path of ['/api/audit', '/api/admin/users', '/api/admin/mail', '/api/settings', '/api/fleet', '/api/account/sessions']) {
+      const res = await call('GET', path, { cookie: admin })
+      expect(res.status, path).toBe(200)
+      expect(res.headers.get('cache-control'), path).toBe('no-store')
+    }
+    const page = await fetch(`${baseURL()}/admin/users`, { headers: { cookie: admin } })
+    expect(page.headers.get('cache-control')).toBe('no-store')
+    const html = await page.text()
+    const asset = html.match(/\/_nuxt\/[\w.-]+\.js/)?.[0]
+    expect(asset, 'a built script named in the page').toBeTruthy()
+    const cached = await fetch(baseURL() + asset!)
+    expect(cached.status).toBe(200)
+    expect(cached.headers.get('cache-control')).toMatch(/max-age=\d{5,}/)
   })
 
   it('refuses an oversized JSON body with 413 before reading it, yet lets an upload within the lab policy through', async () => {
@@ -124,9 +158,10 @@ describe('security headers', () => {
     const huge = JSON.stringify({ name: 'x'.repeat(5 * 1024 * 1024) })
     const res = await call('POST', '/api/vessels', { cookie, raw: huge, headers: { 'content-type': 'application/json' } })
     expect(res.status).toBe(413)
+    expect(res.body.message).toMatch(/larger than the 64 kB accepted/)
 
     const vessel = await call('POST', '/api/vessels', { cookie, body: { name: unique('Big'), serialNumber: unique('SN'), class: 'standard', ratedEnergyJ: 33000, maxChargeMassG: 1.5, maxFillPressureMPa: 4.05, volumeMl: 300 } })
-    // A 9.5 MB photo: under the policy's 10 MiB per file (shared/domain/policy.ts), over the 4 MB JSON limit.
+    // A 9.5 MB photo: under the policy's 10 MiB per file (shared/domain/policy.ts), far over the 64 kB JSON limit.
     const big = Buffer.alloc(9.5 * 1024 * 1024, 0x20)
     big.set([0x89, 0x50, 0x4E, 0x47, 0x0D, 0x0A, 0x1A, 0x0A], 0)
     const form = new FormData()

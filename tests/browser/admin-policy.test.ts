@@ -23,7 +23,7 @@ describe('lab policy, audit trail and mail pages in Chromium', () => {
     await page.locator('main h1', { hasText: 'Admin' }).waitFor()
     await expect(page.getByText('local regulations, the vessel maker\'s instructions and the lab\'s own procedures come first').isVisible()).resolves.toBe(true)
     // Every group of the policy is on the page.
-    for (const g of ['Servicing', 'Charge checks', 'Oxygen', 'Energetic screening', 'Results', 'Sessions & uploads']) {
+    for (const g of ['Servicing', 'Charge checks', 'Oxygen', 'Energetic screening', 'Results', 'Sessions & sizes']) {
       await expect(page.getByRole('heading', { name: g, exact: true }).isVisible()).resolves.toBe(true)
     }
     const row = page.getByTestId('policy-fillPressureWindowMaxMPa')

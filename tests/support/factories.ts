@@ -47,3 +47,11 @@ export async function addRun(planId: string, body: Record<string, unknown>, cook
 export async function benzoicAcidMaterialId(): Promise<string> {
   return (await material('Benzoic acid, calorimetric standard')).id
 }
+
+/** A fresh user made by the admin, with a password strong enough for the server's rule. */
+export async function newUser(roles: string[] = ['analyst'], password = 'quartz lantern meadow', name = 'Test Person') {
+  const email = `${unique('u')}@emberline.test`
+  const res = await call('POST', '/api/admin/users', { cookie: await as('admin'), body: { email, name, roles, password } })
+  expect(res.status).toBe(201)
+  return { id: res.body.id as string, email, password }
+}

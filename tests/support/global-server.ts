@@ -14,7 +14,7 @@ export default async function setup(project: TestProject) {
   const port = String(3100 + Math.floor(Math.random() * 800))
   const server = spawn(process.execPath, [process.env.EMBERLINE_BUILD_DIR ? `${process.env.EMBERLINE_BUILD_DIR}/.output/server/index.mjs` : '.output/server/index.mjs'], {
     cwd: root,
-    env: { ...process.env, PORT: port, NITRO_HOST: '127.0.0.1', NODE_ENV: 'production' },
+    env: { ...process.env, PORT: port, NITRO_HOST: '127.0.0.1', NODE_ENV: 'production', NUXT_PUBLIC_SITE_URL: `http://127.0.0.1:${port}` },
     stdio: ['ignore', 'pipe', 'pipe'],
   })
   let output = ''

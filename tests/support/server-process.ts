@@ -20,7 +20,8 @@ export async function startServer(env: Record<string, string> = {}): Promise<Ser
   const entry = process.env.EMBERLINE_BUILD_DIR ? `${process.env.EMBERLINE_BUILD_DIR}/.output/server/index.mjs` : '.output/server/index.mjs'
   const child = spawn(process.execPath, [entry], {
     cwd: root,
-    env: { ...process.env, PORT: port, NITRO_HOST: '127.0.0.1', NODE_ENV: 'production', ...env },
+    // The public origin is this instance's own address unless the test names another (a proxy's host).
+    env: { ...process.env, PORT: port, NITRO_HOST: '127.0.0.1', NODE_ENV: 'production', NUXT_PUBLIC_SITE_URL: `http://127.0.0.1:${port}`, ...env },
     stdio: ['ignore', 'pipe', 'pipe'],
   })
   let output = ''

@@ -24,7 +24,7 @@ export default defineEventHandler(async (event) => {
     'Content-Disposition': `${image ? 'inline' : 'attachment'}; filename="${row.fileName.replace(/["\\]/g, '_')}"`,
     'X-Content-Type-Options': 'nosniff',
     'Content-Security-Policy': 'default-src \'none\'; img-src \'self\'; sandbox',
-    'Cache-Control': 'private, max-age=3600',
+    'Cache-Control': 'no-store',
   })
   return body
 })

@@ -29,7 +29,14 @@ export function median(values: readonly number[]): number {
 /** Range w = max − min — ISO 5725-6 §5.2 (range used for the critical-range test). */
 export function range(values: readonly number[]): number {
   if (values.length === 0) throw new RangeError('range of an empty series')
-  return Math.max(...values) - Math.min(...values)
+  // A loop, not Math.max(...values): spreading a long series overflows the call stack.
+  let lo = Infinity
+  let hi = -Infinity
+  for (const v of values) {
+    if (v < lo) lo = v
+    if (v > hi) hi = v
+  }
+  return hi - lo
 }
 
 /** Least-squares straight line T = intercept + slope·t — ordinary linear regression (textbook normal equations). */

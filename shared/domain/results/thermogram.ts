@@ -31,6 +31,10 @@ export interface ThermogramParseOptions {
 /** Default fewest points: a fore-period, main period and after-period of at least 10 readings each. */
 export const THERMOGRAM_MIN_POINTS = 30
 
+/** Most readings accepted in one thermogram: over 27 h at one reading per second (common practice: a firing's record
+ * lasts well under an hour). Larger files are refused before any analysis. */
+export const THERMOGRAM_MAX_POINTS = 100_000
+
 /** Fraction of the observed rise at which Dickinson extrapolates the drift lines — ASTM D5865 / ASTM D240 (60 %). */
 export const DICKINSON_FRACTION = 0.6
 
@@ -61,6 +65,10 @@ export function parseThermogramCsv(text: string, options: ThermogramParseOptions
     const line = (lines[i] as string).trim()
     if (line === '') continue
     const row = i + 1
+    if (points.length >= THERMOGRAM_MAX_POINTS) {
+      errors.push({ row, message: `The thermogram has more than ${THERMOGRAM_MAX_POINTS.toLocaleString('en-GB')} readings, the most accepted; send a thinned record (for example one reading per second).` })
+      break
+    }
     const fields = line.split(',').map((f) => f.trim())
     if (fields.length !== 2) {
       errors.push({ row, message: `Expected 2 values (time, temperature), found ${fields.length}.` })
@@ -179,8 +187,10 @@ export function detectPeriods(points: readonly ThermogramPoint[], options: Therm
     const s = (at(j + 1).temperatureC - at(j).temperatureC) / (at(j + 1).timeS - at(j).timeS)
     if (s > sMax) { sMax = s; jMax = j }
   }
-  const temps = points.map((p) => p.temperatureC)
-  const rise = Math.max(...temps) - at(0).temperatureC
+  // A loop, not Math.max(...array): spreading a long record overflows the call stack.
+  let highest = -Infinity
+  for (const p of points) if (p.temperatureC > highest) highest = p.temperatureC
+  const rise = highest - at(0).temperatureC
   if (!(sMax > 0) || !(rise > 0)) return { ok: false, reason: 'No temperature rise was found in the thermogram.' }
   // Smallest deviation treated as leaving a drift line: 3·10⁻⁵ of the rise, or 4× the fit's scatter if noisier.
   const tolerance = (fit: DriftFit) => Math.max(4 * rms(points, fit), 3e-5 * rise)

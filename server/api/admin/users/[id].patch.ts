@@ -1,4 +1,4 @@
-import { eq, sql } from 'drizzle-orm'
+import { eq } from 'drizzle-orm'
 import { userUpdateSchema } from '#shared/schemas/users'
 
 export default defineEventHandler(async (event) => {
@@ -18,15 +18,12 @@ export default defineEventHandler(async (event) => {
       const [clash] = await tx.select({ id: schema.users.id }).from(schema.users).where(eq(schema.users.email, input.email))
       if (clash) throw createError({ statusCode: 409, message: `A user with the e-mail ${input.email} already exists.`, data: { fields: [{ path: 'email', message: 'already in use' }] } })
     }
-    // Disabling, or changing roles, ends the user's sessions at once (epoch raised).
-    const endSessions = input.active === false || (input.roles !== undefined && input.roles.join() !== before.roles.join())
-    const [row] = await tx.update(schema.users).set({
-      ...input,
-      updatedAt: new Date(),
-      ...(endSessions ? { sessionEpoch: sql`${schema.users.sessionEpoch} + 1` } : {}),
-    }).where(eq(schema.users.id, id)).returning()
+    // Disabling, or changing roles, ends the user's sessions at once: they sign in again with what they now may do.
+    const rolesChanged = input.roles !== undefined && [...input.roles].sort().join() !== [...before.roles].sort().join()
+    const [row] = await tx.update(schema.users).set({ ...input, updatedAt: new Date() }).where(eq(schema.users.id, id)).returning()
+    const sessionsEnded = input.active === false ? await endUserSessions(tx, id, 'disabled') : rolesChanged ? await endUserSessions(tx, id, 'role-change') : 0
     const action = input.active === false ? 'user.disable' : input.active === true && !before.active ? 'user.enable' : 'user.update'
-    await audit(tx, event, { action, entity: 'user', entityId: id, oldValues: publicUser(before), newValues: publicUser(row!) })
+    await audit(tx, event, { action, entity: 'user', entityId: id, oldValues: publicUser(before), newValues: { ...publicUser(row!), sessionsEnded } })
     return row!
   })
   return publicUser(updated)

@@ -4,7 +4,8 @@ import { userCreateSchema } from '#shared/schemas/users'
 export default defineEventHandler(async (event) => {
   await requireRole(event, 'admin')
   const input = await parseBody(event, userCreateSchema)
-  const passwordHash = await hashPassword(input.password)
+  await assertStrongPassword(input.password, 'password', [input.email, input.name])
+  const passwordHash = await inHashSlot(() => hashPassword(input.password))
   const created = await useDb().transaction(async (tx) => {
     const [clash] = await tx.select({ id: schema.users.id }).from(schema.users).where(eq(schema.users.email, input.email))
     if (clash) throw createError({ statusCode: 409, message: `A user with the e-mail ${input.email} already exists.`, data: { fields: [{ path: 'email', message: 'already in use' }] } })

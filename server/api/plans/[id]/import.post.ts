@@ -20,6 +20,8 @@ export default defineEventHandler(async (event) => {
     getPolicy(),
   ])
   const { rows, fileErrors } = parsePlanImport(csv, materialRefs, vesselRows)
+  // Refused before each row is assessed: the file would take the plan past the policy's ceiling.
+  await assertPlanRoom(db, id, rows.length, policy, 'csv')
   const vesselsByName = new Map(vesselRows.map(v => [v.name, vesselView(v, policy)]))
   const planVessel = vesselView(vesselRows.find(v => v.id === plan.vesselId)!, policy)
 
@@ -43,6 +45,8 @@ export default defineEventHandler(async (event) => {
   }
 
   const created = await db.transaction(async (tx) => {
+    await findPlanOr404(tx, id, true)
+    await assertPlanRoom(tx, id, rows.length, policy, 'csv')
     const values: NewRun[] = []
     for (const r of rows) {
       const input = r.input!

@@ -8,6 +8,7 @@ export default defineEventHandler(async (event) => {
   const policy = await getPolicy()
   const run = await useDb().transaction(async (tx) => {
     const plan = await findPlanOr404(tx, id, true)
+    await assertPlanRoom(tx, id, 1, policy, 'runs')
     const vesselId = input.vesselId ?? plan.vesselId
     const vessel = vesselView(await findVesselOr404(tx, vesselId), policy)
     const fillPressureMPa = input.fillPressureMPa ?? plan.fillPressureMPa

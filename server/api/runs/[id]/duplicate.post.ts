@@ -8,6 +8,7 @@ export default defineEventHandler(async (event) => {
   const run = await useDb().transaction(async (tx) => {
     const src = await findRunOr404(tx, id)
     await findPlanOr404(tx, src.planId, true)
+    await assertPlanRoom(tx, src.planId, 1, policy, 'runs')
     const vessel = vesselView(await findVesselOr404(tx, src.vesselId), policy)
     const components = src.components as RunInput['components']
     await refuseCheckRunWithoutEnergyEquivalent(tx, src.kind, vessel)
