@@ -6,7 +6,7 @@ import cluster from 'node:cluster'
 import { availableParallelism } from 'node:os'
 import { fileURLToPath } from 'node:url'
 
-const entry = fileURLToPath(new URL('../.output/server/index.mjs', import.meta.url))
+const entry = process.env.EMBERLINE_SERVER_ENTRY ?? fileURLToPath(new URL('../.output/server/index.mjs', import.meta.url))
 const given = Number.parseInt(process.env.EMBERLINE_WORKERS ?? '', 10)
 const workers = Number.isFinite(given) && given > 0 ? given : availableParallelism()
 
