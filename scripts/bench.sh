@@ -20,7 +20,7 @@ fi
 
 PORT=$(node -e "const s = require('net').createServer(); s.listen(0, '127.0.0.1', () => { console.log(s.address().port); s.close() })")
 say "starting the built server on 127.0.0.1:$PORT"
-PORT=$PORT NITRO_HOST=127.0.0.1 NODE_ENV=production NUXT_PUBLIC_SITE_URL="http://127.0.0.1:$PORT" node "$OUTPUT/server/index.mjs" >"$DATA/bench-server.log" 2>&1 &
+PORT=$PORT NITRO_HOST=127.0.0.1 NODE_ENV=production NUXT_PUBLIC_SITE_URL="http://127.0.0.1:$PORT" EMBERLINE_SERVER_ENTRY="$OUTPUT/server/index.mjs" node "$ROOT/scripts/serve.mjs" >"$DATA/bench-server.log" 2>&1 &
 SERVER_PID=$!
 trap 'kill "$SERVER_PID" 2>/dev/null || true; wait "$SERVER_PID" 2>/dev/null || true' EXIT
 healthy() { node -e "fetch('http://127.0.0.1:$PORT/api/health').then(r => process.exit(r.ok ? 0 : 1), () => process.exit(1))"; }

@@ -1,6 +1,6 @@
 // npm run bench (through scripts/bench.sh, which starts the built server): prints one markdown table of speed figures.
 // Progress goes to stderr so that stdout is only the table. Figures are printed, never asserted.
-import { readFileSync } from 'node:fs'
+import { readdirSync, readFileSync } from 'node:fs'
 import { cpus, loadavg } from 'node:os'
 import { gzipSync } from 'node:zlib'
 import { assessCharge, type ChargeInput } from '../shared/domain/assessment'
@@ -140,8 +140,23 @@ async function latency(name: string, request: () => Promise<Response>, n = 40, o
 /** Peak resident memory of the server so far (VmHWM), when bench.sh passes its pid. */
 function peakRssMB(): number | null {
   if (!SERVER_PID) return null
-  const m = readFileSync(`/proc/${SERVER_PID}/status`, 'utf8').match(/VmHWM:\s+(\d+) kB/)
-  return m ? Number(m[1]) / 1024 : null
+  // The server may be a primary with one worker per core: add up the high-water marks of the whole tree.
+  const pids = [Number(SERVER_PID)]
+  for (const entry of readdirSync('/proc')) {
+    if (!/^\d+$/.test(entry)) continue
+    try {
+      const stat = readFileSync(`/proc/${entry}/stat`, 'utf8')
+      const ppid = Number(stat.slice(stat.lastIndexOf(')') + 2).split(' ')[1])
+      if (ppid === Number(SERVER_PID)) pids.push(Number(entry))
+    }
+    catch { /* ended meanwhile */ }
+  }
+  let total = 0
+  for (const pid of pids) {
+    const m = readFileSync(`/proc/${pid}/status`, 'utf8').match(/VmHWM:\s+(\d+) kB/)
+    if (m) total += Number(m[1]) / 1024
+  }
+  return total
 }
 
 interface LargeLab { vesselId: string, planId: string, audit: string }
@@ -264,6 +279,17 @@ async function main() {
     { name: 'GET /api/settings', request: () => fetch(`${BASE}/api/settings`, { headers: { cookie } }) },
   )
   if (!assess || !trivial) throw new Error('no load figures')
+  // The ratios the lab watches, each pair measured in the same run: what a session and the policy cost a request,
+  // and what a signed-in, server-rendered page with its data costs against the sign-in page.
+  const [health, settings] = await compare(
+    { name: 'GET /api/health', request: () => fetch(`${BASE}/api/health`) },
+    { name: 'GET /api/settings', request: () => fetch(`${BASE}/api/settings`, { headers: { cookie } }) },
+  )
+  const [loginPage, today] = await compare(
+    { name: 'GET /login', request: () => fetch(`${BASE}/login`) },
+    { name: 'GET / (Today)', request: () => fetch(`${BASE}/`, { headers: { cookie } }) },
+  )
+  if (!health || !settings || !loginPage || !today) throw new Error('no ratio figures')
   log('client JS of /check')
   const weight = await pageWeight(cookie, '/check')
 
@@ -303,12 +329,16 @@ async function main() {
     ['1,000 charges in Node', `${fmt(node.thousandMs, 1)} ms`, 'sample mass varied; median of 7 rounds'],
     ['`POST /api/assess` (vesselId of a vessel in service)', `${fmt(assess.rps)} req/s`, `median latency ${fmt(assess.p50Ms, 1)} ms; ${conditions}`],
     ['`GET /api/settings` (trivial authenticated route)', `${fmt(trivial.rps)} req/s`, `median latency ${fmt(trivial.p50Ms, 1)} ms; same server and conditions`],
+    ['`GET /api/health` (public, one `select 1`)', `${fmt(health.rps)} req/s`, `median latency ${fmt(health.p50Ms, 1)} ms; ${conditions}`],
+    ['`GET /api/settings` against health', `${fmt(settings.rps)} req/s = ${fmt(settings.rps / health.rps, 2)} × health`, 'aim ≥ 0.6 × health, measured in alternating slices with it'],
+    ['`GET /login` (server-rendered, no data)', `${fmt(loginPage.rps)} req/s`, `median latency ${fmt(loginPage.p50Ms, 1)} ms`],
+    ['`GET /` Today (server-rendered, signed in, large lab)', `${fmt(today.rps)} req/s = ${fmt(today.rps / loginPage.rps, 2)} × /login`, 'aim ≥ 0.5 × the sign-in page, alternating slices with it'],
     ['Ratio assess / trivial', fmt(assess.rps / trivial.rps, 2), `aim ≥ 0.5; ${cpus().length} cores, load average ${fmt(loadBefore, 1)} at the start (the load generator shares the machine)`],
     ['Quick check page, client JS', `${fmt(weight.gzipKB, 1)} kB gzip`, `${weight.files} files (${fmt(weight.rawKB, 0)} kB raw) from script and modulepreload tags; formula and SMILES libraries load later, on first use`],
     ...routes.map(r => [`Large lab: ${r.name}`, `${fmt(r.p50, 1)} ms median, ${fmt(r.p95, 1)} ms p95`, `${r.n} requests one at a time; 50 vessels, 100,000 firings, 20,000 materials, 200,000 audit rows (scripts/bench-seed.ts)`]),
     ['Large lab: mixed load', `${fmt(mixed.p95, 0)} ms p95, ${mixed.errors} errors`, `${MIXED_USERS} concurrent users for ${MIXED_SECONDS} s over 8 routes (fleet, vessel, firings, plan, assess, materials, approvals, audit): ${fmt(mixed.requests)} requests, ${fmt(mixed.rps)} req/s, median ${fmt(mixed.p50, 0)} ms`],
     ['`GET /api/health` during 20 concurrent wrong sign-ins', `${fmt(burst.during, 1)} ms median, ${fmt(burst.p95, 1)} ms p95`, `${burst.n} requests one at a time while the burst ran (${fmt(burst.quiet, 1)} ms median alone); ${burst.hashed} attempts reached the password hash, ${burst.throttled} were refused with 429 before it; aim < 50 ms median`],
-    ['Peak server memory (VmHWM)', rss === null ? 'not measured' : `${fmt(rss, 0)} MB`, 'resident set high-water mark of the server process over the whole bench'],
+    ['Peak server memory (VmHWM)', rss === null ? 'not measured' : `${fmt(rss, 0)} MB`, 'resident set high-water marks of the server processes (primary and workers) over the whole bench, added up'],
     ...weights.map(([page, w]) => [`Client JS of \`${page.replace(/[0-9a-f-]{36}/, ':id')}\``, `${fmt(w.gzipKB, 1)} kB gzip`, `${w.files} files (${fmt(w.rawKB, 0)} kB raw) loaded at once`]),
   ]
   const out = ['| Measure | Result | Conditions |', '|---|---|---|', ...rows.map(r => `| ${r.join(' | ')} |`)]

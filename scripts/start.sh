@@ -26,4 +26,4 @@ cat <<MSG
     admin@emberline.test        users, vessels, policy
 
 MSG
-exec node "$ROOT/.output/server/index.mjs"
+exec node "$ROOT/scripts/serve.mjs"
