@@ -44,6 +44,11 @@ export interface LabPolicy {
   sessionIdleMinutes: number
   sessionAbsoluteHours: number
   displayUnit: SpecificEnergyUnit
+  determinationsPerSample: number
+  firingCycleMinutes: number
+  workdayStartHour: number
+  workdayHours: number
+  energyEquivalentMaxAgeDays: number
 }
 
 export const DEFAULT_POLICY: LabPolicy = {
@@ -82,6 +87,11 @@ export const DEFAULT_POLICY: LabPolicy = {
   sessionIdleMinutes: 60,
   sessionAbsoluteHours: 12,
   displayUnit: 'J/g',
+  determinationsPerSample: 2,
+  firingCycleMinutes: 20,
+  workdayStartHour: 8,
+  workdayHours: 8,
+  energyEquivalentMaxAgeDays: 30,
 }
 
 const positive = () => z.number().positive()
@@ -128,6 +138,11 @@ export const labPolicySchema = z
     sessionIdleMinutes: count().max(1440),
     sessionAbsoluteHours: count().max(168),
     displayUnit: z.enum(SPECIFIC_ENERGY_UNITS),
+    determinationsPerSample: count().max(10),
+    firingCycleMinutes: count().max(240),
+    workdayStartHour: z.number().int().min(0).max(23),
+    workdayHours: z.number().gt(0).max(24),
+    energyEquivalentMaxAgeDays: count().max(3650),
   })
   .strict()
   .refine(p => p.fillPressureWindowMinMPa <= p.fillPressureWindowMaxMPa, {
@@ -190,4 +205,9 @@ export const POLICY_DESCRIPTIONS: Readonly<Record<keyof LabPolicy, PolicyDescrip
   sessionIdleMinutes: { label: 'Sign out after idle', unit: 'minutes', source: 'common practice' },
   sessionAbsoluteHours: { label: 'Sign out at the latest after', unit: 'hours', source: 'common practice' },
   displayUnit: { label: 'Unit for calorific values', unit: '—', source: 'NIST SP 811 factors' },
+  determinationsPerSample: { label: 'Determinations per received sample', unit: 'runs', source: 'ISO 1928: results in duplicate (from memory)' },
+  firingCycleMinutes: { label: 'Bench time per firing cycle (charge, fire, read, clean)', unit: 'minutes', source: "the lab's own estimate" },
+  workdayStartHour: { label: 'Bench day starts at', unit: 'hour (0–23)', source: "the lab's own decision" },
+  workdayHours: { label: 'Bench day length', unit: 'hours', source: "the lab's own decision" },
+  energyEquivalentMaxAgeDays: { label: 'Check run first when the energy equivalent is older than', unit: 'days', source: "the lab's own decision (common practice: regular check runs)" },
 }

@@ -64,4 +64,13 @@ export const MATRIX: Record<string, Who> = {
   'GET /api/vessels/[id]/firings': 'all',
   'GET /api/vessels/[id]/services': 'all',
   'POST /api/vessels/[id]/services': ['technician'],
+  'GET /api/clients': 'all',
+  'POST /api/clients': ['supervisor', 'admin'],
+  'GET /api/samples': 'all',
+  'POST /api/samples': ['analyst', 'supervisor'],
+  'GET /api/samples/[id]': 'all',
+  'POST /api/samples/[id]/reject': ['analyst', 'supervisor'],
+  'POST /api/samples/[id]/photos': ['analyst', 'supervisor'],
+  'POST /api/plans/[id]/from-samples': ['analyst'],
+  'GET /api/search': 'all',
 }
