@@ -32,6 +32,8 @@ export interface PlanVessel {
   firingsUntilRequalification: number
   /** Calendar date of the next routine service. */
   serviceDueAt: Date
+  /** Firings already placed on this vessel that day by an accepted day plan: this plan starts after them. */
+  alreadyPlannedToday?: number
   /** What the day must start with, and why; null when nothing is needed. */
   firstNeeds: { kind: 'check' | 'standardisation', firings: number, reason: string } | null
 }
@@ -101,9 +103,10 @@ export function dayCapacity(v: PlanVessel, s: DaySettings): { firings: number, l
   if (v.blocksAllFirings) return { firings: 0, limit: v.stateReason }
   const dayEnd = s.dayStart.getTime() + s.workdayMinutes * MINUTE
   const until = Math.min(dayEnd, v.serviceDueAt.getTime())
-  const byTime = Math.max(0, Math.floor((until - s.dayStart.getTime()) / (s.cycleMinutes * MINUTE)))
+  const busy = v.alreadyPlannedToday ?? 0
+  const byTime = Math.max(0, Math.floor((until - s.dayStart.getTime()) / (s.cycleMinutes * MINUTE)) - busy)
   const options: [number, string][] = [
-    [byTime, until < dayEnd ? `routine service falls due at ${hhmm(v.serviceDueAt)} UTC` : `${byTime} firing cycles of ${s.cycleMinutes} min fit the bench day`],
+    [byTime, until < dayEnd ? `routine service falls due at ${hhmm(v.serviceDueAt)} UTC` : `${byTime} firing cycles of ${s.cycleMinutes} min fit the bench day${busy ? ` after the ${busy} already planned` : ''}`],
     [Math.max(0, v.firingsUntilService), `${Math.max(0, v.firingsUntilService)} firings left before routine service`],
     [Math.max(0, v.firingsUntilRequalification), `${Math.max(0, v.firingsUntilRequalification)} firings left before requalification`],
   ]
@@ -136,7 +139,7 @@ export function layoutDay(vessels: PlanVessel[], runs: PlanRun[], assignment: As
   const out: VesselDay[] = vessels.map((v) => {
     const { firings: cap, limit } = dayCapacity(v, s)
     const firings: PlannedFiring[] = []
-    const at = (i: number) => new Date(s.dayStart.getTime() + i * s.cycleMinutes * MINUTE)
+    const at = (i: number) => new Date(s.dayStart.getTime() + (i + (v.alreadyPlannedToday ?? 0)) * s.cycleMinutes * MINUTE)
     const first = startsFor(v, cap)
     for (let i = 0; i < first; i++) {
       firings.push({ runId: null, kind: v.firstNeeds!.kind, label: `${v.firstNeeds!.kind === 'check' ? 'Check run' : 'Standardisation run'} (reference standard)`, order: i + 1, startsAt: at(i), endsAt: at(i + 1), why: v.firstNeeds!.reason, needsSignature: false })

@@ -66,6 +66,8 @@ const POISON: Record<string, string> = {
   'POST /api/samples': 'description',
   'POST /api/samples/[id]/reject': 'reason',
   'POST /api/plans/[id]/from-samples': 'sampleIds',
+  'POST /api/day-plans/proposal': 'vesselIds',
+  'POST /api/day-plans': 'vesselIds',
 }
 
 const DOMAIN_TABLES = ['users', 'vessels', 'materials', 'plans', 'runs', 'signatures', 'firings', 'services', 'results', 'energy_equivalents',

@@ -73,4 +73,8 @@ export const MATRIX: Record<string, Who> = {
   'POST /api/samples/[id]/photos': ['analyst', 'supervisor'],
   'POST /api/plans/[id]/from-samples': ['analyst'],
   'GET /api/search': 'all',
+  'POST /api/day-plans/proposal': ['analyst', 'supervisor'],
+  'POST /api/day-plans': ['analyst'],
+  'GET /api/day-plans': 'all',
+  'GET /api/samples/[id]/label.svg': 'all',
 }
