@@ -86,11 +86,13 @@ export async function loadDayContext(db: Db | Tx, day: string, vesselIds: string
   }
   const cache = new Map<string, ReturnType<AssessOn>>()
   const assessOn: AssessOn = (run, vessel) => {
-    const k = `${run.id}|${vessel.id}`
+    const r = byRun.get(run.id)!
+    const chargeKey = JSON.stringify([r.components, r.fillPressureMPa, r.kind])
+    // Duplicates share one charge, so one assessment per charge and vessel.
+    const k = `${chargeKey}|${vessel.id}`
     const hit = cache.get(k)
     if (hit) return hit
-    const r = byRun.get(run.id)!
-    const charge = charges.get(JSON.stringify([r.components, r.fillPressureMPa, r.kind]))
+    const charge = charges.get(chargeKey)
     let out: ReturnType<AssessOn>
     if (!charge) out = { verdict: 'blocked', reason: 'the charge cannot be assessed; open the run and correct it' }
     else {
