@@ -73,7 +73,7 @@ export interface PlannedFiring {
 export interface VesselDay {
   vesselId: string
   name: string
-  /** Firings this vessel may do today (rule 2); 0 when it takes nothing. */
+  /** Firings this vessel may do that day (rule 2); 0 when it takes nothing. */
   capacity: number
   firings: PlannedFiring[]
   endsAt: Date | null
@@ -97,8 +97,9 @@ export type Assignment = Record<string, string[]>
 
 const MINUTE = 60_000
 const hhmm = (d: Date) => d.toISOString().slice(11, 16)
+const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`
 
-/** Rule 2: firings the vessel may do today, and what limits it. */
+/** Rule 2: firings the vessel may do that day, and what limits it. */
 export function dayCapacity(v: PlanVessel, s: DaySettings): { firings: number, limit: string } {
   if (v.blocksAllFirings) return { firings: 0, limit: v.stateReason }
   const dayEnd = s.dayStart.getTime() + s.workdayMinutes * MINUTE
@@ -107,8 +108,8 @@ export function dayCapacity(v: PlanVessel, s: DaySettings): { firings: number, l
   const byTime = Math.max(0, Math.floor((until - s.dayStart.getTime()) / (s.cycleMinutes * MINUTE)) - busy)
   const options: [number, string][] = [
     [byTime, until < dayEnd ? `routine service falls due at ${hhmm(v.serviceDueAt)} UTC` : `${byTime} firing cycles of ${s.cycleMinutes} min fit the bench day${busy ? ` after the ${busy} already planned` : ''}`],
-    [Math.max(0, v.firingsUntilService), `${Math.max(0, v.firingsUntilService)} firings left before routine service`],
-    [Math.max(0, v.firingsUntilRequalification), `${Math.max(0, v.firingsUntilRequalification)} firings left before requalification`],
+    [Math.max(0, v.firingsUntilService), `${plural(Math.max(0, v.firingsUntilService), 'firing')} left before routine service`],
+    [Math.max(0, v.firingsUntilRequalification), `${plural(Math.max(0, v.firingsUntilRequalification), 'firing')} left before requalification`],
   ]
   const [firings, limit] = options.reduce((a, b) => (b[0] < a[0] ? b : a))
   return { firings, limit }
@@ -155,13 +156,13 @@ export function layoutDay(vessels: PlanVessel[], runs: PlanRun[], assignment: As
       const i = firings.length
       const no = refusal(run, v, assessOn)
       if (no) problems.push({ runId, vesselId: v.id, message: `${run.label}: ${no}` })
-      else if (i >= cap) problems.push({ runId, vesselId: v.id, message: `${run.label}: ${v.name} has ${cap} firing${cap === 1 ? '' : 's'} today (${limit})` })
+      else if (i >= cap) problems.push({ runId, vesselId: v.id, message: `${run.label}: ${v.name} has ${cap} firing${cap === 1 ? '' : 's'} that day (${limit})` })
       const verdict = no ? 'blocked' : assessOn(run, v).verdict
       firings.push({ runId, kind: run.kind, label: run.label, order: i + 1, startsAt: at(i), endsAt: at(i + 1), why: why.get(runId) ?? `moved here by the analyst; checked against ${v.name}`, needsSignature: verdict === 'needs-approval' })
     }
     const note = cap === 0
-      ? `${v.name} takes nothing today: ${limit}.`
-      : `${v.name}: up to ${cap} firing${cap === 1 ? '' : 's'} today (${limit}).${v.blocksSampleRuns && !v.blocksAllFirings ? ' Only the check run until it passes.' : ''}`
+      ? `${v.name} takes nothing that day: ${limit}.`
+      : `${v.name}: up to ${cap} firing${cap === 1 ? '' : 's'} that day (${limit}).${v.blocksSampleRuns && !v.blocksAllFirings ? ' Only the check run until it passes.' : ''}`
     return {
       vesselId: v.id,
       name: v.name,
@@ -226,7 +227,7 @@ export function proposeDay(vessels: PlanVessel[], runs: PlanRun[], assessOn: Ass
         reason = `No chosen vessel may fire it — ${reasons.slice(0, 3).join('; ')}${reasons.length > 3 ? `; and ${reasons.length - 3} more` : ''}.`
       }
       else {
-        reason = `The vessels that may fire it are full today — ${ok.slice(0, 3).map(v => `${v.name}: ${cap.get(v.id)!.limit}`).join('; ')}${ok.length > 3 ? `; and ${ok.length - 3} more` : ''}.`
+        reason = `The vessels that may fire it are full that day — ${ok.slice(0, 3).map(v => `${v.name}: ${cap.get(v.id)!.limit}`).join('; ')}${ok.length > 3 ? `; and ${ok.length - 3} more` : ''}.`
       }
       leftovers.push({ runId: r.id, label: r.label, reason })
     }

@@ -41,7 +41,7 @@ describe('day plan', () => {
     expect(status).toBe(200)
     expect(body.problems).toEqual([])
     expect(on(body, C.id).firings).toEqual([])
-    expect(on(body, C.id).note).toMatch(/takes nothing today/)
+    expect(on(body, C.id).note).toMatch(/takes nothing that day/)
     expect(on(body, D.id).firings.map(f => f.kind)).toEqual(['check'])
     expect(on(body, A.id).firings.slice(0, 5).map(f => [f.kind, f.runId])).toEqual(Array(5).fill(['standardisation', null]))
     expect(on(body, A.id).firings[0]!.why).toMatch(/No energy equivalent on record/)
@@ -57,7 +57,7 @@ describe('day plan', () => {
     const left = body.leftovers.filter(l => myRuns.includes(l.runId))
     expect(placed.length + left.length).toBe(24)
     expect(left.length).toBe(4)
-    expect(left[0]!.reason).toMatch(/full today/)
+    expect(left[0]!.reason).toMatch(/full that day/)
     // Duplicates together where possible: the first sample's two runs are next to each other on one vessel.
     const a = on(body, A.id).firings.filter(f => f.runId)
     expect(a[0]!.why).toMatch(/All 2 determinations on/)
@@ -72,7 +72,7 @@ describe('day plan', () => {
     expect(res.body.problems.map(p => p.message)).toEqual([expect.stringMatching(/may not fire/)])
     assignment[C.id] = []
     assignment[B.id] = [...assignment[B.id]!, moved]
-    expect((await propose(assignment)).body.problems[0]!.message).toMatch(/has 6 firings today/)
+    expect((await propose(assignment)).body.problems[0]!.message).toMatch(/has 6 firings that day/)
   })
 
   it('accepts a plan: runs take their vessel and order in one transaction, with audit rows; a plan with problems changes nothing', async () => {
@@ -99,6 +99,20 @@ describe('day plan', () => {
     expect(after.body.vessels.flatMap(v => v.firings.map(f => f.runId)).filter(id => id && onB.includes(id))).toEqual([])
     expect(on(after.body, B.id).capacity).toBe(0)
     expect(after.body.forecasts[B.id]).toMatchObject({ by: 'firings', dueAt: `${day}T00:00:00.000Z` })
+  })
+
+  it('accepts the same runs once when two analysts accept at the same moment', async () => {
+    const client = await newClient()
+    const s = await receive(client.id, { materialId: (await material('Rolled oat flakes')).id, receivedAt: new Date(Date.now() - 20 * 86_400_000).toISOString() })
+    const plan = await newPlan(A.id)
+    await call('POST', `/api/plans/${plan.id}/from-samples`, { cookie: await as('analyst'), body: { sampleIds: [s.id] } })
+    const { body } = await propose()
+    const assignment = Object.fromEntries(body.vessels.map(v => [v.vesselId, v.firings.flatMap(f => (f.runId ? [f.runId] : []))]))
+    const [x, y] = await Promise.all([
+      call('POST', '/api/day-plans', { cookie: await as('analyst'), body: { day, vesselIds, assignment } }),
+      call('POST', '/api/day-plans', { cookie: await as('analyst2'), body: { day, vesselIds, assignment } }),
+    ])
+    expect([x.status, y.status].sort()).toEqual([201, 422])
   })
 
   it('names the bad fields', async () => {

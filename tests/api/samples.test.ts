@@ -146,6 +146,25 @@ describe('plan from the queue', () => {
     expect(again.body.data.fields[0].path).toBe('sampleIds.0')
   })
 
+  it('plans a sample once when two analysts plan it at the same moment', async () => {
+    const vessel = await demoVessel('KR-1')
+    const [p1, p2] = [await newPlan(vessel.id), await newPlan(vessel.id, await as('analyst2'))]
+    const s = await receive(client.id)
+    const [a, b] = await Promise.all([
+      call('POST', `/api/plans/${p1.id}/from-samples`, { cookie: await as('analyst'), body: { sampleIds: [s.id] } }),
+      call('POST', `/api/plans/${p2.id}/from-samples`, { cookie: await as('analyst2'), body: { sampleIds: [s.id] } }),
+    ])
+    expect([a.status, b.status].sort()).toEqual([201, 422])
+    const { rows } = await testDb().query('select count(*)::int as n from runs where sample_id = $1', [s.id])
+    expect(rows[0].n).toBe(2)
+  })
+
+  it('refuses a time of receipt without its time zone', async () => {
+    const res = await call('POST', '/api/samples', { cookie: await as('analyst'), body: { clientId: client.id, description: 'x', receivedAt: '2026-12-01T10:00' } })
+    expect(res.status).toBe(422)
+    expect(res.body.data.fields[0].path).toBe('receivedAt')
+  })
+
   it('honours a number of determinations and changes nothing when one sample is wrong', async () => {
     const vessel = await demoVessel('KR-2')
     const plan = await newPlan(vessel.id)

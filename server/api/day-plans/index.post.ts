@@ -1,4 +1,4 @@
-import { eq, inArray } from 'drizzle-orm'
+import { asc, eq, inArray } from 'drizzle-orm'
 import { dayPlanAcceptSchema } from '#shared/schemas/day-plans'
 
 // Accepts a day plan: re-checked by the same rules inside the transaction (422 naming each problem), then each run
@@ -10,7 +10,7 @@ export default defineEventHandler(async (event) => {
   const policy = await getPolicy()
   const result = await useDb().transaction(async (tx) => {
     const runIds = Object.values(input.assignment).flat()
-    if (runIds.length) await tx.select({ id: schema.runs.id }).from(schema.runs).where(inArray(schema.runs.id, runIds)).for('update')
+    if (runIds.length) await tx.select({ id: schema.runs.id }).from(schema.runs).where(inArray(schema.runs.id, runIds)).orderBy(asc(schema.runs.id)).for('update')
     const answer = await dayPlanAnswer(tx, input, policy)
     if (answer.problems.length) {
       invalidInput(answer.problems.map(p => ({ path: `assignment.${p.vesselId}.${Math.max(0, (input.assignment[p.vesselId] ?? []).indexOf(p.runId))}`, message: p.message })))

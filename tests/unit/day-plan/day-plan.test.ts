@@ -22,7 +22,7 @@ describe('day plan rules', () => {
     expect(p.vessels[0]!.firings).toHaveLength(6)
     expect(p.vessels[0]!.firingsLeftAfter).toBe(0)
     expect(p.leftovers).toHaveLength(4)
-    expect(p.leftovers[0]!.reason).toMatch(/full today — A: 6 firings left before routine service/)
+    expect(p.leftovers[0]!.reason).toMatch(/full that day — A: 6 firings left before routine service/)
   })
 
   it('stops at a calendar service date that falls inside the day', () => {
@@ -35,7 +35,7 @@ describe('day plan rules', () => {
     const locked = vessel({ id: 'L', blocksAllFirings: true, blocksSampleRuns: true, stateReason: 'The vessel is locked out' })
     const p = proposeDay([locked, vessel({ id: 'A' })], runsFor(2), clear, S)
     expect(p.vessels.find(v => v.vesselId === 'L')!.firings).toEqual([])
-    expect(p.vessels.find(v => v.vesselId === 'L')!.note).toMatch(/takes nothing today: The vessel is locked out/)
+    expect(p.vessels.find(v => v.vesselId === 'L')!.note).toMatch(/takes nothing that day: The vessel is locked out/)
   })
 
   it('starts with a check run where one is needed, and fires only that on a vessel awaiting verification', () => {
@@ -73,7 +73,7 @@ describe('day plan rules', () => {
     const moved = layoutDay(vs, runs, { A: ['s1-d0', 's1-d1'], B: ['s0-d0', 's0-d1'] }, assess, S)
     expect(moved.problems.map(p => p.message)).toEqual(['KR-2026-00000/1: blocked on B: mass above the maximum', 'KR-2026-00000/2: blocked on B: mass above the maximum'])
     const over = layoutDay(vs, runs, { A: ['s0-d0', 's0-d1'], B: ['s1-d0', 's1-d1'] }, assess, S)
-    expect(over.problems.map(p => p.message)).toEqual(['KR-2026-00001/2: B has 1 firing today (1 firings left before routine service)'])
+    expect(over.problems.map(p => p.message)).toEqual(['KR-2026-00001/2: B has 1 firing that day (1 firing left before routine service)'])
     expect(layoutDay(vs, runs, { A: ['s0-d0', 's0-d1', 's1-d0'], B: ['s1-d1'] }, assess, S).problems).toEqual([])
   })
 

@@ -1,4 +1,4 @@
-import { eq, inArray, max } from 'drizzle-orm'
+import { asc, eq, inArray, max } from 'drizzle-orm'
 import { z } from 'zod'
 
 const body = z.object({
@@ -23,7 +23,7 @@ export default defineEventHandler(async (event) => {
     const vesselId = input.vesselId ?? plan.vesselId
     const vessel = vesselView(await findVesselOr404(tx, vesselId), policy)
     const fillPressureMPa = input.fillPressureMPa ?? plan.fillPressureMPa
-    const rows = await tx.select().from(schema.samples).where(inArray(schema.samples.id, input.sampleIds)).for('update')
+    const rows = await tx.select().from(schema.samples).where(inArray(schema.samples.id, input.sampleIds)).orderBy(asc(schema.samples.id)).for('update')
     const byId = new Map(rows.map(r => [r.id, r]))
     const issues = input.sampleIds.flatMap((sid, i) => {
       const s = byId.get(sid)
