@@ -99,6 +99,10 @@ describe('day plan', () => {
     expect(after.body.vessels.flatMap(v => v.firings.map(f => f.runId)).filter(id => id && onB.includes(id))).toEqual([])
     expect(on(after.body, B.id).capacity).toBe(0)
     expect(after.body.forecasts[B.id]).toMatchObject({ by: 'firings', dueAt: `${day}T00:00:00.000Z` })
+    // The fleet page's forecast counts the accepted day plan too (6 firings planned on a vessel with 6 left).
+    const fleet = await call('GET', '/api/fleet', { cookie: await as('technician') })
+    const b = fleet.body.vessels.find((v: { id: string }) => v.id === B.id)
+    expect(b.forecast.dayPlans).toMatchObject({ dueAt: `${day}T00:00:00.000Z`, plannedFirings: 6 })
   })
 
   it('accepts the same runs once when two analysts accept at the same moment', async () => {
