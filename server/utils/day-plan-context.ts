@@ -50,7 +50,9 @@ export async function loadDayContext(db: Db | Tx, day: string, vesselIds: string
     const sameDay = ahead.filter(a => a.vesselId === r.id && a.day === day).reduce((n, a) => n + a.firings, 0)
     const ee = ees.find(e => e.vesselId === r.id)
     let firstNeeds: PlanVessel['firstNeeds'] = null
-    if (v.state === 'awaiting-verification') firstNeeds = { kind: 'check', firings: 1, reason: `${v.name} was serviced: a check run with the reference standard must pass before any sample (vessel state).` }
+    // A check placed by an accepted plan of the same day already opens that day.
+    if (sameDay > 0) firstNeeds = null
+    else if (v.state === 'awaiting-verification') firstNeeds = { kind: 'check', firings: 1, reason: `${v.name} was serviced: a check run with the reference standard must pass before any sample (vessel state).` }
     else if (!ee) firstNeeds = { kind: 'standardisation', firings: policy.standardisationRuns, reason: `No energy equivalent on record for ${v.name}: a standardisation series of ${policy.standardisationRuns} runs first (lab policy).` }
     else {
       const age = Math.floor((settings.dayStart.getTime() - ee.acceptedAt.getTime()) / DAY_MS)

@@ -15,7 +15,7 @@ interface Firing { runId: string | null, kind: string, order: number, why: strin
 interface VesselDay { vesselId: string, capacity: number, firings: Firing[], note: string }
 interface Answer { vessels: VesselDay[], leftovers: { runId: string, reason: string }[], problems: { runId: string, message: string }[], forecasts: Record<string, { dueAt: string, by: string }> }
 
-const propose = async (assignment?: Record<string, string[]>) => call<Answer>('POST', '/api/day-plans/proposal', { cookie: await as('analyst'), body: { day, vesselIds, ...(assignment ? { assignment } : {}) } })
+const propose = async (assignment?: Record<string, string[]>, on = day) => call<Answer>('POST', '/api/day-plans/proposal', { cookie: await as('analyst'), body: { day: on, vesselIds, ...(assignment ? { assignment } : {}) } })
 const on = (a: Answer, id: string) => a.vessels.find(v => v.vesselId === id)!
 
 beforeAll(async () => {
@@ -110,13 +110,20 @@ describe('day plan', () => {
     const s = await receive(client.id, { materialId: (await material('Rolled oat flakes')).id, receivedAt: new Date(Date.now() - 20 * 86_400_000).toISOString() })
     const plan = await newPlan(A.id)
     await call('POST', `/api/plans/${plan.id}/from-samples`, { cookie: await as('analyst'), body: { sampleIds: [s.id] } })
-    const { body } = await propose()
+    // The day after: the first day is full on A and B.
+    const next = new Date(Date.parse(`${day}T00:00:00Z`) + 86_400_000).toISOString().slice(0, 10)
+    const { body } = await propose(undefined, next)
     const assignment = Object.fromEntries(body.vessels.map(v => [v.vesselId, v.firings.flatMap(f => (f.runId ? [f.runId] : []))]))
+    expect(Object.values(assignment).flat().length).toBeGreaterThan(0)
     const [x, y] = await Promise.all([
-      call('POST', '/api/day-plans', { cookie: await as('analyst'), body: { day, vesselIds, assignment } }),
-      call('POST', '/api/day-plans', { cookie: await as('analyst2'), body: { day, vesselIds, assignment } }),
+      call('POST', '/api/day-plans', { cookie: await as('analyst'), body: { day: next, vesselIds, assignment } }),
+      call('POST', '/api/day-plans', { cookie: await as('analyst2'), body: { day: next, vesselIds, assignment } }),
     ])
     expect([x.status, y.status].sort()).toEqual([201, 422])
+    // An empty day plan is nothing to accept.
+    const empty = await call('POST', '/api/day-plans', { cookie: await as('analyst'), body: { day: next, vesselIds, assignment: {} } })
+    expect(empty.status).toBe(422)
+    expect(empty.body.data.fields[0].path).toBe('assignment')
   })
 
   it('names the bad fields', async () => {

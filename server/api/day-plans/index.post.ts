@@ -7,6 +7,7 @@ import { dayPlanAcceptSchema } from '#shared/schemas/day-plans'
 export default defineEventHandler(async (event) => {
   await requireRole(event, 'analyst')
   const input = await parseBody(event, dayPlanAcceptSchema)
+  if (!Object.values(input.assignment).flat().length) invalidInput([{ path: 'assignment', message: 'place at least one run on a vessel' }])
   const policy = await getPolicy()
   const result = await useDb().transaction(async (tx) => {
     const runIds = Object.values(input.assignment).flat()
