@@ -6,6 +6,8 @@ export interface NavItem { label: string, to: string, roles: Role[] | 'all', mat
 export const NAV_ITEMS: NavItem[] = [
   { label: 'Today', to: '/', roles: 'all' },
   { label: 'Quick check', to: '/check', roles: 'all' },
+  // Receipt, the queue and the day plan: analysts and supervisors receive samples.
+  { label: 'Samples', to: '/samples', roles: ['analyst', 'supervisor'] },
   { label: 'Plans', to: '/plans', roles: ['analyst', 'supervisor'] },
   { label: 'Approvals', to: '/approvals', roles: ['supervisor'] },
   { label: 'Bench', to: '/bench', roles: ['analyst', 'supervisor'] },

@@ -5,6 +5,7 @@ import { cpus, loadavg } from 'node:os'
 import { gzipSync } from 'node:zlib'
 import { assessCharge, type ChargeInput } from '../shared/domain/assessment'
 import { DEFAULT_POLICY } from '../shared/domain/policy'
+import { benchDayPlan } from './bench-day-plan'
 
 const BASE = process.env.EMBERLINE_BENCH_URL ?? 'http://127.0.0.1:3000'
 const CONNECTIONS = Number(process.env.EMBERLINE_BENCH_CONNECTIONS ?? 8)
@@ -263,6 +264,8 @@ async function main() {
   const loadBefore = loadavg()[0] ?? 0
   log('assessCharge in this Node process')
   const node = benchNode()
+  log('day plan: 50 vessels × 500 samples')
+  const day = benchDayPlan()
 
   const cookie = await signIn()
   const vessels = await (await fetch(`${BASE}/api/vessels`, { headers: { cookie } })).json() as { id: string, state: string }[]
@@ -327,6 +330,8 @@ async function main() {
   const rows = [
     ['One assessment in Node (`assessCharge`, median)', `${fmt(node.oneUs, 1)} µs`, 'coal + benzoic-acid aid + nickel-chromium fuse; 20,000 runs after 2,000 warm-up'],
     ['1,000 charges in Node', `${fmt(node.thousandMs, 1)} ms`, 'sample mass varied; median of 7 rounds'],
+    [`Day plan, ${day.vesselCount} vessels × ${day.sampleCount} samples: the heuristic (\`proposeDay\`)`, `${fmt(day.planMs, 1)} ms`, `${fmt(day.runs)} runs (duplicates), ${fmt(day.placed)} placed in one 8 h day; generated lab (tests/support/day-plan-lab.ts); median of ${day.rounds} rounds`],
+    [`Day plan, same lab: charge assessment of every sample on every vessel`, `${fmt(day.assessMs, 0)} ms`, `${fmt(day.sampleCount * day.vesselCount)} assessments (duplicates share one); median of ${day.rounds} rounds`],
     ['`POST /api/assess` (vesselId of a vessel in service)', `${fmt(assess.rps)} req/s`, `median latency ${fmt(assess.p50Ms, 1)} ms; ${conditions}`],
     ['`GET /api/settings` (trivial authenticated route)', `${fmt(trivial.rps)} req/s`, `median latency ${fmt(trivial.p50Ms, 1)} ms; same server and conditions`],
     ['`GET /api/health` (public, one `select 1`)', `${fmt(health.rps)} req/s`, `median latency ${fmt(health.p50Ms, 1)} ms; ${conditions}`],

@@ -16,5 +16,5 @@ setup_database() {
   say "applying migrations"
   (cd "$ROOT" && npx tsx scripts/migrate.ts)
   say "loading the demo lab"
-  (cd "$ROOT" && npx tsx scripts/seed.ts && npx tsx scripts/seed-care.ts && npx tsx scripts/seed-bench.ts)
+  (cd "$ROOT" && npx tsx scripts/seed.ts && npx tsx scripts/seed-care.ts && npx tsx scripts/seed-bench.ts && npx tsx scripts/seed-receipt.ts)
 }

@@ -11,10 +11,10 @@ export default defineEventHandler(async (event) => {
   const now = new Date()
   const [rows, policy] = await Promise.all([db.select().from(schema.vessels).orderBy(asc(schema.vessels.name)), getPolicy()])
   const recent = await firingsSince(db, rows.map(r => r.id), new Date(now.getTime() - FORECAST_WINDOW_DAYS * 86_400_000))
-  const vessels = rows.map((r) => {
-    const view = vesselView(r, policy, now)
-    return { ...view, forecast: serviceForecast(view, recent.get(r.id) ?? 0, now) }
-  })
+  const views = rows.map(r => vesselView(r, policy, now))
+  // Accepted day plans ahead can bring service sooner than the recent rate says.
+  const planned = await plannedServiceDates(db, views, now)
+  const vessels = views.map(view => ({ ...view, forecast: { ...serviceForecast(view, recent.get(view.id) ?? 0, now), dayPlans: planned.get(view.id) ?? null } }))
 
   const runList = (status: string, order: 'oldest' | 'plan') => db.select({
     id: schema.runs.id, planId: schema.runs.planId, seq: schema.runs.seq, sampleCode: schema.runs.sampleCode, kind: schema.runs.kind,

@@ -5,6 +5,7 @@ import { existsSync, readFileSync } from 'node:fs'
 import { createRequire } from 'node:module'
 import { join } from 'node:path'
 import PDFDocument from 'pdfkit'
+import { receiptFields } from './certificate-receipt'
 import { formatSpecificEnergy, fromJPerG, type SpecificEnergyUnit } from '../../shared/domain/specific-energy'
 
 export interface CertificateDetermination {
@@ -43,6 +44,8 @@ export interface CertificateContent {
   issuedBy: string
   replaces: number | null
   statements: string[]
+  /** The client and the item as received (added when the certificate is issued; see certificate-items.ts). */
+  receipt?: import('./certificate-items').CertificateReceipt
 }
 
 const FONT_FILE = '@fontsource-variable/inter/files/inter-latin-wght-normal.woff2'
@@ -192,6 +195,7 @@ export async function renderCertificatePdf(content: CertificateContent, report: 
     y = doc.y + 5
   }
   field('Sample', content.sampleCode)
+  if (content.receipt) receiptFields(content.receipt, field)
   if (content.sampleDescription) field('Description', content.sampleDescription)
   field('Determinations', `${content.determinations.length}, tested ${day(content.testedFrom)}${content.testedTo && day(content.testedTo) !== day(content.testedFrom) ? ` to ${day(content.testedTo)}` : ''}`)
   field('Method', content.method.join(' '))

@@ -93,9 +93,9 @@ export async function discardOrphanUploads(now = new Date()): Promise<number> {
   const a = schema.attachments
   const cutoff = new Date(now.getTime() - ORPHAN_UPLOAD_HOURS * 3_600_000)
   const gone = await useDb().transaction(async (tx) => {
-    const rows = await tx.select().from(a).where(and(isNull(a.serviceId), lt(a.createdAt, cutoff))).limit(200).for('update', { skipLocked: true })
+    const rows = await tx.select().from(a).where(and(isNull(a.serviceId), isNull(a.sampleId), lt(a.createdAt, cutoff))).limit(200).for('update', { skipLocked: true })
     if (!rows.length) return []
-    await tx.delete(a).where(and(inArray(a.id, rows.map(r => r.id)), isNull(a.serviceId)))
+    await tx.delete(a).where(and(inArray(a.id, rows.map(r => r.id)), isNull(a.serviceId), isNull(a.sampleId)))
     await audit(tx, null, { action: 'attachment.discard', entity: 'attachment', entityId: null, oldValues: rows.map(r => ({ id: r.id, fileName: r.fileName, storageKey: r.storageKey })), reason: `not part of any servicing record after ${ORPHAN_UPLOAD_HOURS} h` })
     return rows
   })

@@ -50,6 +50,11 @@ export interface LabPolicy {
   sessionIdleMinutes: number
   sessionAbsoluteHours: number
   displayUnit: SpecificEnergyUnit
+  determinationsPerSample: number
+  firingCycleMinutes: number
+  workdayStartHour: number
+  workdayHours: number
+  energyEquivalentMaxAgeDays: number
 }
 
 export const DEFAULT_POLICY: LabPolicy = {
@@ -94,6 +99,11 @@ export const DEFAULT_POLICY: LabPolicy = {
   sessionIdleMinutes: 60,
   sessionAbsoluteHours: 12,
   displayUnit: 'J/g',
+  determinationsPerSample: 2,
+  firingCycleMinutes: 20,
+  workdayStartHour: 8,
+  workdayHours: 8,
+  energyEquivalentMaxAgeDays: 30,
 }
 
 const positive = () => z.number().positive()
@@ -146,6 +156,11 @@ export const labPolicySchema = z
     sessionIdleMinutes: count().max(1440),
     sessionAbsoluteHours: count().max(168),
     displayUnit: z.enum(SPECIFIC_ENERGY_UNITS),
+    determinationsPerSample: count().max(10),
+    firingCycleMinutes: count().max(240),
+    workdayStartHour: z.number().int().min(0).max(23),
+    workdayHours: z.number().gt(0).max(24),
+    energyEquivalentMaxAgeDays: count().max(3650),
   })
   .strict()
   .refine(p => p.fillPressureWindowMinMPa <= p.fillPressureWindowMaxMPa, {
@@ -223,4 +238,9 @@ export const POLICY_DESCRIPTIONS: Readonly<Record<keyof LabPolicy, PolicyDescrip
   signedMassTolerancePct: { label: 'A signature covers a weighed sample mass up to this much above the signed mass', unit: '%', source: LAB },
   minSampleMassG: { label: 'Smallest sample mass accepted', unit: 'g', source: LAB },
   maxRunsPerPlan: { label: 'Most runs in one plan', unit: 'runs', source: LAB },
+  determinationsPerSample: { label: 'Determinations per received sample', unit: 'runs', source: `${LAB}, as its test method asks for duplicates` },
+  firingCycleMinutes: { label: 'Bench time per firing cycle (charge, fire, read, clean)', unit: 'minutes', source: LAB },
+  workdayStartHour: { label: 'Bench day starts at', unit: 'hour (0–23)', source: LAB },
+  workdayHours: { label: 'Bench day length', unit: 'hours', source: LAB },
+  energyEquivalentMaxAgeDays: { label: 'Check run first when the energy equivalent is older than', unit: 'days', source: LAB },
 }

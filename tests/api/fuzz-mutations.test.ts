@@ -64,10 +64,16 @@ const POISON: Record<string, string> = {
   'PATCH /api/vessels/[id]': 'name',
   'POST /api/vessels/[id]/energy-equivalent': 'resultIds',
   'POST /api/vessels/[id]/services': 'kind',
+  'POST /api/clients': 'name',
+  'POST /api/samples': 'description',
+  'POST /api/samples/[id]/reject': 'reason',
+  'POST /api/plans/[id]/from-samples': 'sampleIds',
+  'POST /api/day-plans/proposal': 'vesselIds',
+  'POST /api/day-plans': 'vesselIds',
 }
 
 const DOMAIN_TABLES = ['users', 'vessels', 'materials', 'plans', 'runs', 'signatures', 'firings', 'services', 'results', 'energy_equivalents',
-  'reports', 'lab_settings', 'attachments']
+  'reports', 'lab_settings', 'attachments', 'clients', 'samples', 'day_plans']
 // A refused sign-in is itself recorded (login_attempts and its audit row: the lockout and the trail depend on it),
 // so these are compared for every route but the login route. captured_mail is left out: the fake mail server fills
 // it from mail queued by earlier test files whenever the outbox worker gets to it; the outbox itself is compared.
@@ -171,14 +177,15 @@ describe('fuzzing every mutating route', () => {
     const { rows: [plan] } = await testDb().query('select plan_id from runs where id = $1', [run!.id])
     const { rows: [user] } = await testDb().query(`select id from users where email = 'analyst2@emberline.test'`)
     const { rows: [material] } = await testDb().query('select id from materials order by name limit 1')
-    Object.assign(real, { vessel: v.id, run: run!.id, result: result.body.result.id, plan: plan.plan_id, user: user.id, material: material.id })
+    const { rows: [sample] } = await testDb().query('select id from samples order by lab_code limit 1')
+    Object.assign(real, { sample: sample?.id ?? randomUUID(), vessel: v.id, run: run!.id, result: result.body.result.id, plan: plan.plan_id, user: user.id, material: material.id })
     for (const role of ['analyst', 'supervisor', 'technician', 'admin'] as DemoRole[]) await as(role)
   })
 
   it('covers every mutating route in the roles table and the poison table', () => {
     for (const r of routes) {
       expect(MATRIX[r.key], r.key).toBeDefined()
-      if (r.key !== 'POST /api/vessels/[id]/attachments' && r.key !== 'POST /api/plans/[id]/submit' && !RANDOM_IDS_ONLY.has(r.key)) expect(POISON[r.key], r.key).toBeDefined()
+      if (r.key !== 'POST /api/vessels/[id]/attachments' && r.key !== 'POST /api/samples/[id]/photos' && r.key !== 'POST /api/plans/[id]/submit' && !RANDOM_IDS_ONLY.has(r.key)) expect(POISON[r.key], r.key).toBeDefined()
     }
   })
 

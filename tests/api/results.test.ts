@@ -3,6 +3,7 @@ import { as, baseURL, call, signIn, unique } from '../support/api'
 import { auditRows } from '../support/db'
 import { BA_J_PER_G, FUSE_10CM_J, PASSWORD, benzoicAcidId, enterResult, fire, readyRuns, registerVessel, standardisedVessel, vessel } from '../unit/bench/bench-api'
 import { pdfText } from '../unit/bench/pdf-text'
+import { newClient, receive } from '../support/samples'
 import { synthesiseThermogram, thermogramCsv } from '../unit/bench/synthetic-thermogram'
 
 // Results through the API (issue 5). Check values and their sources:
@@ -141,7 +142,8 @@ describe('duplicates (ISO 1928 repeatability r = 120 J/g, lab policy)', () => {
 
 describe('sign-off, revisions and the certificate', () => {
   it('follows the rules: supervisor only, re-authenticated, once; a change is a new audited revision; only signed results are certified', async () => {
-    const code = unique('CERT')
+    // A certificate names the client and the item as received: the sample is received first and keeps its lab code.
+    const code = (await receive((await newClient()).id)).labCode
     const first = await sampleResult(code, BA_J_PER_G)
     const second = await sampleResult(code, BA_J_PER_G + 80)
     const supervisor = await as('supervisor')

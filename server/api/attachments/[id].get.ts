@@ -10,7 +10,7 @@ export default defineEventHandler(async (event) => {
   const { id } = parseParams(event, params)
   const [row] = await useDb().select().from(schema.attachments).where(eq(schema.attachments.id, id))
   // An upload not yet part of a record is visible to its uploader only.
-  if (!row || (row.serviceId === null && row.uploadedBy !== user.id)) throw createError({ statusCode: 404, message: 'No such file.' })
+  if (!row || (row.serviceId === null && row.sampleId === null && row.uploadedBy !== user.id)) throw createError({ statusCode: 404, message: 'No such file.' })
   const raw = await (await uploadStorage()).getItemRaw(row.storageKey)
   if (!raw) {
     console.error(`[uploads] attachment ${row.id} has no stored file at ${row.storageKey}`)
