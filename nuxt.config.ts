@@ -1,5 +1,7 @@
 // Emberline — Nuxt configuration. The project keeps pages/, components/ … at the root.
 // EMBERLINE_BUILD_DIR lets a second build (a parallel worktree, a benchmark) live beside the main one.
+import { PRODUCTION_SCRYPT } from './server/utils/password-cost'
+
 const buildRoot = process.env.EMBERLINE_BUILD_DIR
 
 export default defineNuxtConfig({
@@ -18,8 +20,9 @@ export default defineNuxtConfig({
     },
   },
   auth: {
-    // OWASP Password Storage Cheat Sheet: scrypt N = 2^17, r = 8, p = 1 (128 MiB per hash).
-    hash: { scrypt: { cost: 131072, blockSize: 8, parallelization: 1, maxMemory: 256 * 1024 * 1024 } },
+    // OWASP Password Storage Cheat Sheet: scrypt N = 2^17, r = 8, p = 1 (128 MiB per hash); the server may lower it
+    // for the test database only (server/plugins/password-cost.ts).
+    hash: { scrypt: PRODUCTION_SCRYPT },
   },
   runtimeConfig: {
     databaseUrl: '',
