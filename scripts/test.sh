@@ -35,7 +35,7 @@ if [ ! -x /usr/bin/chromium ]; then
   apt-get update -qq && apt-get install -y -qq --no-install-recommends chromium >/dev/null
 fi
 
-say "unit and component tests"; npx vitest run --project unit
+say "unit and component tests"; npx vitest run --project unit --project nuxt
 ensure_build
 wait $lint_pid $typecheck_pid || true
 for check in lint typecheck; do
