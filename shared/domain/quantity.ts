@@ -55,7 +55,7 @@ export function parseQuantity(text: string, kind: QuantityKind): ParsedQuantity 
   const t = normaliseNumberText(text)
   if (!t) return null
   const m = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:e[-+]?\d+)?)\s*(.*)$/i.exec(t)
-  if (!m) return { ok: false, error: `"${text.trim()}" does not start with a number (try ${info.examples})` }
+  if (!m) return { ok: false, error: `"${text.trim()}" is not a number (try ${info.examples})` }
   const value = Number(m[1])
   let unitText = m[2]!.trim()
   let basis: PressureBasis | undefined
@@ -95,4 +95,18 @@ export function parseQuantityCell(raw: string | undefined, kind: QuantityKind): 
   const parsed = parseQuantity(raw ?? '', kind)
   if (!parsed) return undefined
   return parsed.ok ? parsed.value : new Error(parsed.error)
+}
+
+// Import columns carry their unit in the name (mass_g, fill_pressure_mpa …); a cell may still say "950 mg" or "30 bar".
+const COLUMN_KINDS: readonly [RegExp, QuantityKind][] = [[/_j_per_g$/, 'specificEnergy'], [/_mpa$/, 'pressure'], [/_g$/, 'mass'], [/_cm$/, 'length'], [/_ml$/, 'volume']]
+
+/** A cell of an import column: the number in the column's unit (a unit typed in the cell is converted), or an Error. */
+export function parseColumnCell(raw: string, column: string): number | Error {
+  const kind = COLUMN_KINDS.find(([re]) => re.test(column.toLowerCase()))?.[1]
+  if (!kind) {
+    const value = Number(normaliseNumberText(raw))
+    return Number.isFinite(value) ? value : new Error(`"${raw.trim()}" is not a number`)
+  }
+  const parsed = parseQuantity(raw, kind)
+  return !parsed ? new Error('is empty') : parsed.ok ? parsed.value : new Error(parsed.error)
 }

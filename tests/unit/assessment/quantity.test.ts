@@ -1,6 +1,6 @@
 // Quantities typed as people say them, read into the API's units.
 import { describe, expect, it } from 'vitest'
-import { normaliseNumberText, parseQuantity, parseQuantityCell } from '#shared/domain/quantity'
+import { normaliseNumberText, parseColumnCell, parseQuantity, parseQuantityCell } from '#shared/domain/quantity'
 
 const value = (text: string, kind: Parameters<typeof parseQuantity>[1]) => {
   const p = parseQuantity(text, kind)
@@ -47,7 +47,7 @@ describe('parseQuantity', () => {
     expect(parseQuantity('3 MPa', 'mass')).toMatchObject({ ok: false, error: expect.stringMatching(/not a mass/) })
     expect(parseQuantity('26 MJ', 'specificEnergy')).toMatchObject({ ok: false, error: expect.stringMatching(/energy per mass/) })
     expect(parseQuantity('3 furlongs', 'pressure')).toMatchObject({ ok: false, error: expect.stringMatching(/not a unit/) })
-    expect(parseQuantity('abc', 'mass')).toMatchObject({ ok: false, error: expect.stringMatching(/does not start with a number/) })
+    expect(parseQuantity('abc', 'mass')).toMatchObject({ ok: false, error: expect.stringMatching(/is not a number/) })
     expect(parseQuantity('3 MPa; 1+1', 'pressure')).toMatchObject({ ok: false })
     expect(parseQuantity('   ', 'mass')).toBeNull()
   })
@@ -67,5 +67,17 @@ describe('normaliseNumberText and parseQuantityCell', () => {
     expect(parseQuantityCell('', 'mass')).toBeUndefined()
     expect(parseQuantityCell('950 mg', 'mass')).toBeCloseTo(0.95, 12)
     expect(parseQuantityCell('30 g', 'pressure')).toBeInstanceOf(Error)
+  })
+})
+
+describe('parseColumnCell', () => {
+  it('reads import cells in the unit their column names, converting a unit typed in the cell (NIST SP 811)', () => {
+    expect(parseColumnCell('0.95', 'mass_g')).toBe(0.95)
+    expect(parseColumnCell('950 mg', 'mass_g')).toBeCloseTo(0.95, 12)
+    expect(parseColumnCell('30 bar', 'fill_pressure_mpa')).toBeCloseTo(3, 12)
+    expect(parseColumnCell('26.45 MJ/kg', 'heating_value_j_per_g')).toBeCloseTo(26450, 8)
+    expect(parseColumnCell('3,5', 'C')).toBe(3.5)
+    expect(parseColumnCell('30 g', 'fill_pressure_mpa')).toBeInstanceOf(Error)
+    expect(parseColumnCell('lots', 'ash')).toBeInstanceOf(Error)
   })
 })
