@@ -36,7 +36,7 @@ export default defineNuxtConfig({
     storageDir: '',
     public: { labName: '' },
   },
-  // Security headers (issue 7). nuxt-security puts a fresh nonce on every script Nuxt renders and sends the page's
+  // Security headers. nuxt-security puts a fresh nonce on every script Nuxt renders and sends the page's
   // CSP with it; server/plugins/security-headers.ts adds the headers it sends only with pages (CSP, Permissions-Policy,
   // COOP) to API answers and assets, and HSTS over HTTPS only. Its in-memory parts stay off: they would differ between
   // instances (sign-in throttling lives in the database) or rewrite bodies; server/middleware/00.origin.ts refuses

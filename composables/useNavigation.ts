@@ -1,6 +1,6 @@
 import type { Role } from '#shared/types/roles'
 
-// Navigation in the lab's words, by role (DESIGN.md §7).
+// Navigation in the lab's words, by role.
 export interface NavItem { label: string, to: string, roles: Role[] | 'all', match?: string }
 
 export const NAV_ITEMS: NavItem[] = [
@@ -13,7 +13,7 @@ export const NAV_ITEMS: NavItem[] = [
   { label: 'Vessels', to: '/vessels', roles: 'all' },
   { label: 'Materials', to: '/materials', roles: 'all' },
   { label: 'Audit', to: '/audit', roles: ['supervisor', 'admin'] },
-  // Supervisors own the lab policy (DESIGN.md §1) without being admins.
+  // Supervisors own the lab policy without being admins.
   { label: 'Lab policy', to: '/admin/policy', roles: ['supervisor'] },
   { label: 'Admin', to: '/admin/users', roles: ['admin'], match: '/admin' },
 ]

@@ -8,7 +8,7 @@ const body = z.object({
   reason: z.string().trim().min(3, 'say why the policy changes').max(1000),
 }).strict()
 
-// Policy is owned by the supervisor (DESIGN.md §1) and administered by the admin; every change is audited with its reason.
+// Policy is owned by the supervisor and administered by the admin; every change is audited with its reason.
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'admin', 'supervisor')
   const input = await parseBody(event, body)

@@ -1,4 +1,4 @@
-// The fleet at a glance (issue 6): every vessel's state, its service forecast from the recent firing
+// The fleet at a glance: every vessel's state, its service forecast from the recent firing
 // rate, and the firing history of one vessel. Counts read the firings index within a bounded window only.
 import { and, eq, gte, inArray, sql } from 'drizzle-orm'
 import { forecastServiceDate } from '#shared/domain/vessel-state'

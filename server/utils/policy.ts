@@ -4,7 +4,7 @@ import type { LabPolicy } from '#shared/domain/policy'
 
 export interface LabSettings { labName: string, policy: LabPolicy, updatedAt: Date | null }
 
-/** The lab's policy in force: the stored values over the defaults of DESIGN.md (read fresh: several instances may serve). */
+/** The lab's policy in force: the stored values over the defaults in shared/domain/policy.ts (read fresh: several instances may serve). */
 export async function getLabSettings(): Promise<LabSettings> {
   const [row] = await useDb().select().from(schema.labSettings).where(eq(schema.labSettings.id, 1))
   const merged = labPolicySchema.safeParse({ ...DEFAULT_POLICY, ...(row?.policy as object | null) })

@@ -1,4 +1,4 @@
-// Vessel reminders (issue 6): when a vessel's state changes to one that needs someone's hands, technicians
+// Vessel reminders: when a vessel's state changes to one that needs someone's hands, technicians
 // and supervisors get one e-mail — once per change, however many workers or app instances look at the same time.
 import type { H3Event } from 'h3'
 import { and, asc, eq, inArray, sql } from 'drizzle-orm'
