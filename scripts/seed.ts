@@ -14,7 +14,7 @@ if (!url) throw new Error('NUXT_DATABASE_URL is not set')
 const pool = new pg.Pool({ connectionString: url, max: 2 })
 const db = drizzle(pool, { schema })
 // The same scrypt settings as the server (EMBERLINE_PASSWORD_HASH_COST; OWASP's N = 2^17 unless it says "test").
-const hasher = new Hash(new Scrypt(scryptOptions()))
+const hasher = new Hash(new Scrypt(scryptOptions(process.env.EMBERLINE_PASSWORD_HASH_COST)))
 
 await db.transaction(async (tx) => {
   const settings = await tx.insert(schema.labSettings).values({ id: 1, labName: DEMO_LAB_NAME, policy: DEFAULT_POLICY })

@@ -16,7 +16,7 @@ export const PRODUCTION_SCRYPT: ScryptOptions = { cost: 131072, blockSize: 8, pa
 export const TEST_SCRYPT: ScryptOptions = { cost: 1024, blockSize: 8, parallelization: 1, maxMemory: 256 * 1024 * 1024 }
 
 /** EMBERLINE_PASSWORD_HASH_COST: unset or "default" → production cost; "test" → the test suite's; anything else is refused. */
-export function scryptOptions(setting = process.env.EMBERLINE_PASSWORD_HASH_COST): ScryptOptions {
+export function scryptOptions(setting: string | undefined): ScryptOptions {
   if (setting === undefined || setting === '' || setting === 'default') return PRODUCTION_SCRYPT
   if (setting === 'test') return TEST_SCRYPT
   throw new Error(`EMBERLINE_PASSWORD_HASH_COST must be "default" or "test", not "${setting}"`)

@@ -3,7 +3,7 @@
 import { scryptOptions } from '../../server/utils/password-cost'
 
 export function serverEnv(port: string, extra: Record<string, string> = {}): NodeJS.ProcessEnv {
-  return { ...process.env, PORT: port, NITRO_HOST: '127.0.0.1', NODE_ENV: 'production', NUXT_HASH_SCRYPT_COST: String(scryptOptions().cost), ...extra }
+  return { ...process.env, PORT: port, NITRO_HOST: '127.0.0.1', NODE_ENV: 'production', NUXT_HASH_SCRYPT_COST: String(scryptOptions(process.env.EMBERLINE_PASSWORD_HASH_COST).cost), ...extra }
 }
 
 export function serverEntry() {
