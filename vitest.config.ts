@@ -17,6 +17,9 @@ export default defineConfig({
           include: ['tests/nuxt/**/*.test.ts'],
           environment: 'nuxt',
           environmentOptions: { nuxt: { domEnvironment: 'happy-dom' } },
+          // Starting the Nuxt environment and loading mathjs on a busy 2-core machine takes longer than the defaults.
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
         },
       }),
       {
