@@ -18,7 +18,7 @@ describe('bench: firing, thermogram, result, sign-off, certificate', () => {
 
     const page = await openPage({ width: 1400, height: 1000 })
     await signInAs(page, 'analyst@emberline.test')
-    await page.getByRole('link', { name: 'Bench' }).click()
+    await page.getByRole('link', { name: 'Bench', exact: true }).click()
     await page.getByTestId(`record-firing-${code}`).click()
     const form = page.getByTestId(`firing-form-${code}`)
     await expect.poll(() => form.isVisible()).toBe(true)
