@@ -1,5 +1,7 @@
 // Emberline — Nuxt configuration. The project keeps pages/, components/ … at the root.
 // EMBERLINE_BUILD_DIR lets a second build (a parallel worktree, a benchmark) live beside the main one.
+import { PRODUCTION_SCRYPT } from './server/utils/password-cost'
+
 const buildRoot = process.env.EMBERLINE_BUILD_DIR
 
 export default defineNuxtConfig({
@@ -18,8 +20,9 @@ export default defineNuxtConfig({
     },
   },
   auth: {
-    // OWASP Password Storage Cheat Sheet: scrypt N = 2^17, r = 8, p = 1 (128 MiB per hash).
-    hash: { scrypt: { cost: 131072, blockSize: 8, parallelization: 1, maxMemory: 256 * 1024 * 1024 } },
+    // OWASP Password Storage Cheat Sheet: scrypt N = 2^17, r = 8, p = 1 (128 MiB per hash); the server may lower it
+    // for the test database only (server/plugins/password-cost.ts).
+    hash: { scrypt: PRODUCTION_SCRYPT },
   },
   runtimeConfig: {
     databaseUrl: '',
@@ -34,7 +37,7 @@ export default defineNuxtConfig({
     // The public origin (NUXT_PUBLIC_SITE_URL): the only Host answered, the only Origin accepted for changes, and the base of links in e-mails.
     public: { labName: '', siteUrl: 'http://localhost:3000' },
   },
-  // Security headers (issue 7). nuxt-security puts a fresh nonce on every script Nuxt renders and sends the page's
+  // Security headers. nuxt-security puts a fresh nonce on every script Nuxt renders and sends the page's
   // CSP with it; server/plugins/security-headers.ts adds the headers it sends only with pages (CSP, Permissions-Policy,
   // COOP) to API answers and assets, and HSTS over HTTPS only. Its in-memory parts stay off: they would differ between
   // instances (sign-in throttling lives in the database) or rewrite bodies; server/middleware/00.origin.ts refuses

@@ -1,28 +1,28 @@
+import { allows, pageAccess } from '#shared/access'
 import type { Role } from '#shared/types/roles'
 
-// Navigation in the lab's words, by role (DESIGN.md §7).
-export interface NavItem { label: string, to: string, roles: Role[] | 'all', match?: string }
+// Navigation in the lab's words; who sees an item is the page's entry in the access map (shared/access.ts).
+export interface NavItem { label: string, to: string, match?: string }
 
 export const NAV_ITEMS: NavItem[] = [
-  { label: 'Today', to: '/', roles: 'all' },
-  { label: 'Quick check', to: '/check', roles: 'all' },
-  // Receipt, the queue and the day plan: analysts and supervisors receive samples.
-  { label: 'Samples', to: '/samples', roles: ['analyst', 'supervisor'] },
-  { label: 'Plans', to: '/plans', roles: ['analyst', 'supervisor'] },
-  { label: 'Approvals', to: '/approvals', roles: ['supervisor'] },
-  { label: 'Bench', to: '/bench', roles: ['analyst', 'supervisor'] },
-  { label: 'Standardisation', to: '/standardisation', roles: ['analyst', 'supervisor'] },
-  { label: 'Vessels', to: '/vessels', roles: 'all' },
-  { label: 'Materials', to: '/materials', roles: 'all' },
-  { label: 'Audit', to: '/audit', roles: ['supervisor', 'admin'] },
-  // Supervisors own the lab policy (DESIGN.md §1) without being admins.
-  { label: 'Lab policy', to: '/admin/policy', roles: ['supervisor'] },
-  { label: 'Admin', to: '/admin/users', roles: ['admin'], match: '/admin' },
+  { label: 'Today', to: '/' },
+  { label: 'Quick check', to: '/check' },
+  { label: 'Samples', to: '/samples' },
+  { label: 'Plans', to: '/plans' },
+  { label: 'Approvals', to: '/approvals' },
+  { label: 'Bench', to: '/bench' },
+  { label: 'Standardisation', to: '/standardisation' },
+  { label: 'Vessels', to: '/vessels' },
+  { label: 'Materials', to: '/materials' },
+  { label: 'Audit', to: '/audit' },
+  { label: 'Lab policy', to: '/admin/policy' },
+  { label: 'Admin', to: '/admin/users', match: '/admin' },
 ]
 
 export function useNavigation() {
   const { user } = useUserSession()
-  return computed(() => NAV_ITEMS.filter(i => i.roles === 'all' || i.roles.some(r => user.value?.roles.includes(r))))
+  // Admins reach the policy through Admin's tabs; the policy item is the supervisor's way in.
+  return computed(() => NAV_ITEMS.filter(i => allows(pageAccess(i.to), user.value?.roles) && !(i.to === '/admin/policy' && user.value?.roles.includes('admin') && !user.value.roles.includes('supervisor'))))
 }
 
 /** True when the signed-in user holds any of the roles (interface only; the server decides). */

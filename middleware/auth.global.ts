@@ -1,12 +1,14 @@
+import { allows, pageAccess } from '#shared/access'
 import type { Role } from '#shared/types/roles'
 
-// Interface guard only: every page but sign-in needs a session. The server checks every request itself.
+// Interface guard only: pages follow the access map in shared/access.ts. The server checks every request itself.
 export default defineNuxtRouteMiddleware(async (to) => {
-  const { loggedIn } = useUserSession()
-  if (to.path === '/login') return
+  const { loggedIn, user } = useUserSession()
+  const who = pageAccess(to.path)
+  if (who === 'public') return
   if (!loggedIn.value) return navigateTo({ path: '/login', query: to.fullPath !== '/' ? { next: to.fullPath } : {} })
-  const roles = to.meta.roles as Role[] | undefined
-  const { user } = useUserSession()
+  // A page may still name roles in definePageMeta; then both the map and the page must allow.
+  const pageRoles = to.meta.roles as Role[] | undefined
   // Said, not hidden: a page the role cannot use explains which role it needs (the URL asked for is kept in `from`).
-  if (roles && !roles.some(r => user.value?.roles.includes(r))) return navigateTo({ path: '/forbidden', query: { from: to.fullPath } })
+  if (!allows(who, user.value?.roles) || (pageRoles && !allows(pageRoles, user.value?.roles))) return navigateTo({ path: '/forbidden', query: { from: to.fullPath } })
 })

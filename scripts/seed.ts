@@ -5,6 +5,7 @@ import { eq } from 'drizzle-orm'
 import { drizzle } from 'drizzle-orm/node-postgres'
 import pg from 'pg'
 import * as schema from '../server/database/schema'
+import { scryptOptions } from '../server/utils/password-cost'
 import { DEFAULT_POLICY } from '../shared/domain/policy'
 import { DEMO_LAB_NAME, DEMO_MATERIALS, DEMO_PASSWORD, DEMO_USERS, demoVessels } from '../data/demo-lab'
 import { REFERENCE_MATERIALS } from '../data/reference-materials'
@@ -13,8 +14,8 @@ const url = process.env.NUXT_DATABASE_URL
 if (!url) throw new Error('NUXT_DATABASE_URL is not set')
 const pool = new pg.Pool({ connectionString: url, max: 2 })
 const db = drizzle(pool, { schema })
-// The same scrypt settings as nuxt.config.ts (OWASP: N = 2^17, r = 8, p = 1).
-const hasher = new Hash(new Scrypt({ cost: 131072, blockSize: 8, parallelization: 1, maxMemory: 256 * 1024 * 1024 }))
+// The same scrypt settings as the server (EMBERLINE_PASSWORD_HASH_COST; OWASP's N = 2^17 unless it says "test").
+const hasher = new Hash(new Scrypt(scryptOptions(process.env.EMBERLINE_PASSWORD_HASH_COST)))
 
 await db.transaction(async (tx) => {
   const settings = await tx.insert(schema.labSettings).values({ id: 1, labName: DEMO_LAB_NAME, policy: DEFAULT_POLICY })

@@ -2,6 +2,8 @@
 # Runs chosen test files against a fresh test database and the current build (rebuilt when sources changed).
 # Usage: bash scripts/test-some.sh <vitest project> [files...]   e.g.  bash scripts/test-some.sh api tests/api/plans.test.ts
 source "$(dirname "$0")/setup.sh"
+# The test database only: cheap scrypt for its seeded accounts and its server (server/utils/password-cost.ts).
+export EMBERLINE_PASSWORD_HASH_COST=${EMBERLINE_PASSWORD_HASH_COST:-test}
 project=${1:?name the vitest project: unit, nuxt, api or browser}; shift
 ensure_deps
 EMBERLINE_USE_GIVEN_DB=0 setup_database emberline_test fresh

@@ -4,6 +4,7 @@ import type { RunComponent, RunInput } from './schemas/plans'
 import { compositionProblems } from './domain/composition'
 import { chemicalTextProblem, normaliseChemicalText } from './domain/hygiene'
 import { MATERIAL_CATEGORIES } from './schemas/materials'
+import { parseColumnCell } from './domain/quantity'
 
 export const IMPORT_COLUMNS = [
   'sample_code', 'kind', 'material', 'mass_g', 'heating_value_j_per_g', 'formula', 'smiles', 'category', 'boiling_point_c', 'C', 'H', 'N', 'S', 'O', 'Cl', 'ash', 'moisture',
@@ -32,8 +33,8 @@ const HAZARDS = ['none', 'energetic', 'oxidiser']
 function num(raw: string | undefined, field: string, errors: string[], opts: { min?: number, max?: number } = {}): number | undefined {
   const text = (raw ?? '').trim().replace(',', '.')
   if (!text) return undefined
-  const value = Number(text)
-  if (!Number.isFinite(value)) { errors.push(`${field} "${raw}" is not a number`); return undefined }
+  const value = parseColumnCell(raw ?? '', field)
+  if (value instanceof Error) { errors.push(`${field} ${value.message}`); return undefined }
   if (opts.min !== undefined && value < opts.min) { errors.push(`${field} must be at least ${opts.min}`); return undefined }
   if (opts.max !== undefined && value > opts.max) { errors.push(`${field} must be at most ${opts.max}`); return undefined }
   return value

@@ -1,5 +1,5 @@
-// Reconciliation of the vessels' firing counters with the firings recorded (issue 7): the pure comparison behind
-// `npm run reconcile`. DESIGN.md §5: every recorded firing adds one to each counter in the transaction that records
+// Reconciliation of the vessels' firing counters with the firings recorded: the pure comparison behind
+// `npm run reconcile`. Every recorded firing adds one to each counter in the transaction that records
 // it; a routine service resets the service counter, a requalification resets both. So, for every vessel:
 //   lifetime              = lifetime carried at registration + all firings recorded
 //   since service         = firings recorded after the last record that reset it (routine or requalification),

@@ -4,7 +4,7 @@ import { asc, count, desc, eq } from 'drizzle-orm'
 const ATTENTION: Record<string, number> = { 'locked-out': 0, 'overdue': 1, 'requalification-due': 2, 'awaiting-verification': 3, 'service-due': 4, 'away': 5 }
 const QUEUE_ROWS = 20
 
-// Today (issue 6): every vessel with its state, counters and service forecast, and the queues of the caller's roles.
+// Today: every vessel with its state, counters and service forecast, and the queues of the caller's roles.
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
   const db = useDb()

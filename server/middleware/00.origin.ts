@@ -1,4 +1,4 @@
-// Cross-site request protection (issue 7), before sign-in checks: a change (POST, PUT, PATCH, DELETE) is refused
+// Cross-site request protection, before sign-in checks: a change (POST, PUT, PATCH, DELETE) is refused
 // with 403 when the browser says it comes from another site (Sec-Fetch-Site: cross-site) or names an Origin other
 // than this server's own. Callers that send neither (scripts, server-to-server, tests) pass: a browser always sends
 // Origin on such requests, and the session cookie (SameSite=Lax) is the second line.

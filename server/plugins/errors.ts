@@ -1,4 +1,4 @@
-// The one place that turns unexpected errors into answers (issue 7). A database outage is a 503 that says nothing
+// The one place that turns unexpected errors into answers. A database outage is a 503 that says nothing
 // was saved; any other unexpected error is a 500 with the request id and no detail (the log keeps the detail).
 // Expected errors (createError with a 4xx) keep the answer Nitro and Nuxt give them.
 import { randomUUID } from 'node:crypto'

@@ -1,4 +1,4 @@
-// Reminders (issue 6): pg-boss on the app's own database (its own schema, `pgboss`) runs the fleet check
+// Reminders: pg-boss on the app's own database (its own schema, `pgboss`) runs the fleet check
 // every few minutes on one instance at a time; the once-per-change rule lives in runFleetCheck itself.
 // A database outage is logged and retried, never thrown into Nitro; pg-boss stops when the server closes.
 //   EMBERLINE_REMINDERS=off                 no scheduled checks in this process (POST /api/admin/reminders/run still works)

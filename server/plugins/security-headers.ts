@@ -1,4 +1,4 @@
-// Security headers on every answer (issue 7). nuxt-security (nuxt.config.ts → security) sends the CSP with a fresh
+// Security headers on every answer. nuxt-security (nuxt.config.ts → security) sends the CSP with a fresh
 // nonce, Permissions-Policy and Cross-Origin-Opener-Policy only with rendered pages; this plugin sends them with
 // API answers, downloads and assets too (a strict CSP: nothing in a JSON answer may run or be framed), and sends
 // HSTS only when the request came over TLS, here or at a proxy the admin trusts (EMBERLINE_TRUST_PROXY=1) — a

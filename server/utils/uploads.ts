@@ -1,4 +1,4 @@
-// Photos and certificates attached to servicing records (issue 6), kept through Nitro's storage layer
+// Photos and certificates attached to servicing records, kept through Nitro's storage layer
 // (mount `uploads`, nuxt.config.ts → nitro.storage). The type is read from the content, never the name.
 import { randomUUID } from 'node:crypto'
 import { and, inArray, isNull, lt } from 'drizzle-orm'

@@ -40,18 +40,19 @@ const MATHJS_NAME: Readonly<Record<string, string>> = {
 let instance: MathJsInstance | undefined
 
 // Created on first use so importing this file costs nothing until a conversion is asked for.
-function math(): MathJsInstance {
+export function mathjs(): MathJsInstance {
   if (!instance) {
     if (!all) throw new Error('mathjs was loaded without its function factories')
     const m = create(all)
-    // NIST SP 811 App. B: the thermochemical and international-table calories and the IT Btu.
-    m.createUnit('calth', '4.184 J')
-    m.createUnit('calIT', '4.1868 J')
+    // NIST SP 811 App. B: the thermochemical and international-table calories and the IT Btu (kcal… with prefixes).
+    m.createUnit('calth', { definition: '4.184 J', prefixes: 'short' })
+    m.createUnit('calIT', { definition: '4.1868 J', prefixes: 'short' })
     m.createUnit('BtuIT', '1055.05585262 J')
     instance = m
   }
   return instance
 }
+const math = mathjs
 
 function convert(value: number, from: string, to: string): number {
   const a = MATHJS_NAME[from]

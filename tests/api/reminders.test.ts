@@ -4,19 +4,19 @@ import { fileURLToPath } from 'node:url'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { as, baseURL, call, DEMO_PASSWORD, unique } from '../support/api'
 import { auditRows, testDb } from '../support/db'
+import { serverEntry, serverEnv } from '../support/server-env'
 
 // Service-due at 90 % of the 500-firing interval, overdue at 500 firings or 182 days, requalification due at
 // 5,000 firings: lab policy defaults of DESIGN.md §2 (common practice, manufacturers' service guidance).
 const DAY = 86_400_000
 const root = fileURLToPath(new URL('../..', import.meta.url))
-const serverEntry = process.env.EMBERLINE_BUILD_DIR ? `${process.env.EMBERLINE_BUILD_DIR}/.output/server/index.mjs` : '.output/server/index.mjs'
 
 interface Instance { url: string, proc: ChildProcess, log: () => string }
 
 /** A second (or third) app instance of the same build on the same database, as a lab running several would. */
 async function startInstance(env: Record<string, string>): Promise<Instance> {
   const port = String(4000 + Math.floor(Math.random() * 900))
-  const proc = spawn(process.execPath, [serverEntry], { cwd: root, env: { ...process.env, PORT: port, NITRO_HOST: '127.0.0.1', NODE_ENV: 'production', NUXT_PUBLIC_SITE_URL: `http://127.0.0.1:${port}`, ...env }, stdio: ['ignore', 'pipe', 'pipe'] })
+  const proc = spawn(process.execPath, [serverEntry()], { cwd: root, env: serverEnv(port, env), stdio: ['ignore', 'pipe', 'pipe'] })
   let out = ''
   proc.stdout!.on('data', (d: Buffer) => { out += d.toString() })
   proc.stderr!.on('data', (d: Buffer) => { out += d.toString() })

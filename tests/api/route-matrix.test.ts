@@ -4,7 +4,7 @@ import type { DemoRole } from '../support/api'
 import { MATRIX } from '../support/roles-matrix'
 import { apiRoutes } from '../support/routes'
 
-const ROLES: DemoRole[] = ['analyst', 'supervisor', 'technician', 'admin']
+const ROLES = ['analyst', 'supervisor', 'technician', 'admin'] as const satisfies DemoRole[]
 // Calling these as an allowed role would end the shared test sessions; their refusals are still checked.
 const SKIP_ALLOWED = new Set(['POST /api/auth/logout'])
 

@@ -2,6 +2,7 @@
 import { spawn } from 'node:child_process'
 import { fileURLToPath } from 'node:url'
 import type { TestProject } from 'vitest/node'
+import { serverEntry, serverEnv } from './server-env'
 
 declare module 'vitest' {
   export interface ProvidedContext { baseURL: string }
@@ -12,9 +13,9 @@ const root = fileURLToPath(new URL('../..', import.meta.url))
 export default async function setup(project: TestProject) {
   if (!process.env.NUXT_DATABASE_URL) throw new Error('Run the API and browser tests through `npm test` (it prepares the test database).')
   const port = String(3100 + Math.floor(Math.random() * 800))
-  const server = spawn(process.execPath, [process.env.EMBERLINE_BUILD_DIR ? `${process.env.EMBERLINE_BUILD_DIR}/.output/server/index.mjs` : '.output/server/index.mjs'], {
+  const server = spawn(process.execPath, [serverEntry()], {
     cwd: root,
-    env: { ...process.env, PORT: port, NITRO_HOST: '127.0.0.1', NODE_ENV: 'production', NUXT_PUBLIC_SITE_URL: `http://127.0.0.1:${port}` },
+    env: serverEnv(port),
     stdio: ['ignore', 'pipe', 'pipe'],
   })
   let output = ''

@@ -2,6 +2,7 @@
 // proxy setting …), for tests that need more than the one server global-server.ts shares with every test file.
 import { spawn } from 'node:child_process'
 import { fileURLToPath } from 'node:url'
+import { serverEntry, serverEnv } from './server-env'
 
 const root = fileURLToPath(new URL('../..', import.meta.url))
 
@@ -17,11 +18,10 @@ export interface ServerProcess {
 
 export async function startServer(env: Record<string, string> = {}): Promise<ServerProcess> {
   const port = String(4000 + Math.floor(Math.random() * 900))
-  const entry = process.env.EMBERLINE_BUILD_DIR ? `${process.env.EMBERLINE_BUILD_DIR}/.output/server/index.mjs` : '.output/server/index.mjs'
-  const child = spawn(process.execPath, [entry], {
+  const child = spawn(process.execPath, [serverEntry()], {
     cwd: root,
     // The public origin is this instance's own address unless the test names another (a proxy's host).
-    env: { ...process.env, PORT: port, NITRO_HOST: '127.0.0.1', NODE_ENV: 'production', NUXT_PUBLIC_SITE_URL: `http://127.0.0.1:${port}`, ...env },
+    env: serverEnv(port, env),
     stdio: ['ignore', 'pipe', 'pipe'],
   })
   let output = ''

@@ -1,6 +1,6 @@
 import { materialCreateSchema } from '#shared/schemas/materials'
 
-// The supervisor owns the materials library (DESIGN.md §1).
+// The supervisor owns the materials library.
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'supervisor')
   const input = await parseBody(event, materialCreateSchema)
