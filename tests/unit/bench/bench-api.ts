@@ -35,7 +35,7 @@ export async function benzoicAcidId(): Promise<string> {
   return baId!
 }
 
-export interface RunSpec { sampleCode?: string, kind?: 'sample' | 'standardisation' | 'check', massG?: number, heatingValueJPerG?: number, materialId?: string, aidMassG?: number }
+export interface RunSpec { sampleCode?: string, kind?: 'sample' | 'standardisation' | 'check', massG?: number, heatingValueJPerG?: number, materialId?: string, aidMassG?: number, smiles?: string }
 
 /** A plan on the vessel with one run per spec, submitted; returns the runs with their status after submission. */
 export async function plannedRuns(vesselId: string, specs: RunSpec[], cookie?: string) {
@@ -45,9 +45,11 @@ export async function plannedRuns(vesselId: string, specs: RunSpec[], cookie?: s
   const aidId = specs.some(s => s.aidMassG) ? await benzoicAcidId() : undefined
   const runs: { id: string, sampleCode: string }[] = []
   for (const s of specs) {
-    const sample = s.materialId
-      ? { role: 'sample', materialId: s.materialId, massG: s.massG ?? 1 }
-      : { role: 'sample', name: 'test sample', massG: s.massG ?? 1, heatingValueJPerG: s.heatingValueJPerG ?? BA_J_PER_G }
+    // Standardisation and check runs burn the library's reference standard (the certified benzoic acid).
+    const materialId = s.materialId ?? (s.kind && s.kind !== 'sample' ? await benzoicAcidId() : undefined)
+    const sample = materialId
+      ? { role: 'sample', materialId, massG: s.massG ?? 1 }
+      : { role: 'sample', name: 'test sample', massG: s.massG ?? 1, heatingValueJPerG: s.heatingValueJPerG ?? BA_J_PER_G, smiles: s.smiles ?? 'OC(=O)c1ccccc1' }
     const components: Record<string, unknown>[] = [sample, { role: 'fuse', wire: 'nichrome', lengthCm: 10 }]
     if (s.aidMassG) components.push({ role: 'aid', materialId: aidId, massG: s.aidMassG })
     const r = await call('POST', `/api/plans/${plan.body.id}/runs`, { cookie: analyst, body: { sampleCode: s.sampleCode ?? unique('S'), kind: s.kind ?? 'sample', components } })
