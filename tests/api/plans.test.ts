@@ -180,10 +180,10 @@ describe('CSV import', () => {
     const v = await newVessel()
     const p = await newPlan(v.id)
     const csv = [
-      'sample_code,material,mass_g,heating_value_j_per_g,fuse_wire,fuse_length_cm',
-      'A-1,,1.0,26454,nichrome,10',
-      'A-2,Client coal KRC-2611 (bituminous blend),0.9,,nichrome,10',
-      'A-3,,1.3,26454,nichrome,10',
+      'sample_code,material,mass_g,heating_value_j_per_g,smiles,fuse_wire,fuse_length_cm',
+      'A-1,,1.0,26454,OC(=O)c1ccccc1,nichrome,10',
+      'A-2,Client coal KRC-2611 (bituminous blend),0.9,,,nichrome,10',
+      'A-3,,1.3,26454,OC(=O)c1ccccc1,nichrome,10',
     ].join('\n')
     const preview = await call('POST', `/api/plans/${p.id}/import`, { cookie: await as('analyst'), body: { csv } })
     expect(preview.status).toBe(200)
