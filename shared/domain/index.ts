@@ -2,7 +2,10 @@
 // units.ts (mathjs; import '#shared/domain/units' on the server) and structure.ts (openchemlib; loaded lazily by resolveComponents).
 export * from './assessment'
 export * from './composition'
+export * from './elements'
+export * from './formula-groups'
 export * from './heating-value'
+export * from './hygiene'
 export * from './oxygen'
 export * from './peak-pressure'
 export * from './policy'

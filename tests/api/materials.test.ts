@@ -21,9 +21,10 @@ describe('materials library', () => {
     const an = (await call('GET', '/api/materials?q=Ammonium%20nitrate', { cookie: await as('analyst') })).body.rows[0]
     // Ammonium nitrate OB = +20.0 % (handbook value, Meyer, Köhler & Homburg).
     expect(an.derived.oxygenBalancePct).toBeCloseTo(20.0, 1)
-    // NH4NO3 holds a nitrate (an N–O group of UN Manual of Tests and Criteria, Appendix 6, Table A6.1) and its
-    // oxygen balance is far above −200 %, so no exemption applies: the screen counts it as energetic, not only oxidising.
+    // Its structure holds a nitrate group and OB +20 % is not below −200 %: energetic by Table A6.1 (UN Appendix 6),
+    // and it is an oxidiser judged on its share of a charge.
     expect(an.derived.screening.status).toBe('energetic')
+    expect(an.derived.screening.oxidiser).toBeTruthy()
   })
 
   it('lets a supervisor add and edit materials (audited, reason required); others are refused', async () => {
