@@ -105,7 +105,7 @@ export async function recordFiring(act: Act, id: string, key: string, body: Firi
           ].join('\n'),
           dedupeKey: `run-reapproval:${id}:${chargeHash}`,
         })
-        return { kind: 'refused', status, statusReason, findings: fresh.approvals, message: `A new signature is needed before this charge is fired — ${why.join(' ')} The run is back awaiting approval and the supervisors have been told; nothing was fired or counted.` }
+        return { kind: 'refused', status, statusReason, findings: fresh.approvals, message: `${changed}: a supervisor's signature is needed again before it is fired — ${why.join(' ')} The run is back awaiting approval and the supervisors have been told; nothing was fired or counted.` }
       }
 
       // Lock the vessel only now (short hold) and check its state again as it stands under the lock.
