@@ -73,7 +73,7 @@ export async function recordFiring(act: Act, id: string, key: string, body: Firi
       const beyondSignature = signed && mass.exceeded && assessment.verdict !== 'clear'
       if (fresh.blocks.length || fresh.approvals.length || beyondSignature) {
         const status = fresh.blocks.length || assessment.verdict === 'blocked' ? 'blocked' : 'awaiting-approval'
-        const why = [beyondSignature ? mass.words : null, ...[...fresh.blocks, ...fresh.approvals].map(f => f.message)].filter((x): x is string => !!x)
+        const why = [beyondSignature ? `${mass.words}.` : null, ...[...fresh.blocks, ...fresh.approvals].map(f => f.message)].filter((x): x is string => !!x)
         const statusReason = status === 'blocked'
           ? `Blocked at the firing: ${why.join(' ')}`
           : `New signature needed at the firing: ${why.join(' ')}`
