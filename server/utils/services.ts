@@ -2,7 +2,8 @@
 // Records are never edited: a correction is a new record pointing to the one it corrects.
 import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm'
 import { correctionEffect, serviceEffect } from '#shared/domain/vessel-lifecycle'
-import type { ServiceInput } from '#shared/schemas/services'
+import type { LockCause } from '#shared/domain/vessel-lifecycle'
+import type { ServiceInput, ServiceKind } from '#shared/schemas/services'
 import type { services } from '../database/schema'
 import type { Act } from './refusal'
 import type { AttachmentRow } from './uploads'
