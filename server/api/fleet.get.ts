@@ -1,3 +1,4 @@
+import { runDutyConflict } from '#shared/domain/run-lifecycle'
 import { asc, count, desc, eq } from 'drizzle-orm'
 
 // Vessels a technician should look at first, most urgent first.
@@ -19,7 +20,7 @@ export default defineEventHandler(async (event) => {
   const runList = (status: string, order: 'oldest' | 'plan') => db.select({
     id: schema.runs.id, planId: schema.runs.planId, seq: schema.runs.seq, sampleCode: schema.runs.sampleCode, kind: schema.runs.kind,
     status: schema.runs.status, verdict: schema.runs.verdict, fillPressureMPa: schema.runs.fillPressureMPa, updatedAt: schema.runs.updatedAt,
-    plannedBy: schema.runs.plannedBy, planName: schema.plans.name, plannerName: schema.users.name, vesselId: schema.runs.vesselId, vesselName: schema.vessels.name,
+    plannedBy: schema.runs.plannedBy, editedBy: schema.runs.editedBy, submittedBy: schema.runs.submittedBy, planName: schema.plans.name, plannerName: schema.users.name, vesselId: schema.runs.vesselId, vesselName: schema.vessels.name,
   }).from(schema.runs)
     .innerJoin(schema.plans, eq(schema.plans.id, schema.runs.planId))
     .innerJoin(schema.users, eq(schema.users.id, schema.runs.plannedBy))
@@ -37,7 +38,8 @@ export default defineEventHandler(async (event) => {
   } = {}
   if (hasRole(user, 'supervisor')) {
     const [list, n] = await Promise.all([runList('awaiting-approval', 'oldest'), runCount('awaiting-approval')])
-    queues.approvals = { count: n, runs: list.map(r => ({ ...r, ownRun: r.plannedBy === user.id })) }
+    // A supervisor who planned, edited or submitted a waiting run may not sign it: it is marked as their own.
+    queues.approvals = { count: n, runs: list.map(r => ({ ...r, ownRun: runDutyConflict(r, user.id) !== null })) }
   }
   if (hasRole(user, 'analyst')) {
     const [list, n] = await Promise.all([runList('ready', 'plan'), runCount('ready')])

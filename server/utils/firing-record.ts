@@ -73,7 +73,7 @@ export async function recordFiring(act: Act, id: string, key: string, body: Firi
       const beyondSignature = signed && mass.exceeded && assessment.verdict !== 'clear'
       if (fresh.blocks.length || fresh.approvals.length || beyondSignature) {
         const status = fresh.blocks.length || assessment.verdict === 'blocked' ? 'blocked' : 'awaiting-approval'
-        const why = [beyondSignature ? mass.words : null, ...[...fresh.blocks, ...fresh.approvals].map(f => f.message)].filter((x): x is string => !!x)
+        const why = [beyondSignature ? `${mass.words}.` : null, ...[...fresh.blocks, ...fresh.approvals].map(f => f.message)].filter((x): x is string => !!x)
         const statusReason = status === 'blocked'
           ? `Blocked at the firing: ${why.join(' ')}`
           : `New signature needed at the firing: ${why.join(' ')}`
@@ -105,7 +105,7 @@ export async function recordFiring(act: Act, id: string, key: string, body: Firi
           ].join('\n'),
           dedupeKey: `run-reapproval:${id}:${chargeHash}`,
         })
-        return { kind: 'refused', status, statusReason, findings: fresh.approvals, message: `A new signature is needed before this charge is fired — ${why.join(' ')} The run is back awaiting approval and the supervisors have been told; nothing was fired or counted.` }
+        return { kind: 'refused', status, statusReason, findings: fresh.approvals, message: `${changed}: a supervisor's signature is needed again before it is fired — ${why.join(' ')} The run is back awaiting approval and the supervisors have been told; nothing was fired or counted.` }
       }
 
       // Lock the vessel only now (short hold) and check its state again as it stands under the lock.

@@ -75,7 +75,7 @@ describe('signatures cover what is fired', () => {
     const { vessel, run: r } = await signedRun(0.9)
     const res = await fire(r.id, { weighedMassG: 0.94 })
     expect(res.status).toBe(409)
-    expect(res.body.message).toContain('A new signature is needed before this charge is fired')
+    expect(res.body.message).toContain('a supervisor\'s signature is needed again before it is fired')
     expect(res.body.message).toContain('weighed 0.94 g, signed 0.90 g: +4.4 % above the 2 % tolerance')
     const back = await run(r.id)
     expect(back.status).toBe('awaiting-approval')
@@ -103,7 +103,7 @@ describe('signatures cover what is fired', () => {
     // Sample as signed, aid 0.16 g: 32,248 J, the heat release of the finding moves by 5 %.
     const res = await fire(r.id, { weighedMassG: 0.8, aidMassG: 0.16 })
     expect(res.status).toBe(409)
-    expect(res.body.message).toMatch(/A new signature is needed/)
+    expect(res.body.message).toMatch(/signature is needed again/)
     expect((await run(r.id)).status).toBe('awaiting-approval')
   })
 
