@@ -53,6 +53,8 @@ export const MATRIX: Record<string, Who> = {
   'POST /api/reports': ['supervisor'],
   'GET /api/reports/[id]/certificate.pdf': ['analyst', 'supervisor'],
   'GET /api/standardisation': ['analyst', 'supervisor'],
+  'GET /api/aid-values': ['analyst', 'supervisor', 'admin'],
+  'POST /api/aid-values': ['supervisor'],
   'GET /api/standardisation/[vesselId]': 'all',
   'GET /api/vessels': 'all',
   'POST /api/vessels': ['admin'],
