@@ -112,7 +112,7 @@ export function calorificValueUncertainty(input: CalorificValueUncertaintyInput)
 
 /**
  * u_c and U of y = f(x) for uncorrelated inputs, with c_i = ∂f/∂x_i found by central differences — JCGM 100:2008 §5.1.3
- * (Note 2: sensitivity coefficients may be obtained numerically). Steps of 1e-6 of the value (or of u) keep f smooth.
+ * (Note 2: sensitivity coefficients may be obtained numerically). Steps of 1e-6 of the value (or of 1) keep f smooth.
  */
 export function propagate(f: (x: readonly number[]) => number, x: readonly number[], u: readonly number[], coverageFactor = 2): { value: number, combinedStandardUncertainty: number, expandedUncertainty: number, sensitivities: number[] } {
   if (x.length !== u.length) throw new RangeError('each input needs its standard uncertainty')
@@ -120,6 +120,8 @@ export function propagate(f: (x: readonly number[]) => number, x: readonly numbe
   const sensitivities = x.map((xi, i) => {
     const h = Math.max(Math.abs(xi), Math.abs(u[i] as number), 1) * 1e-6
     const up = [...x]; up[i] = xi + h
+    // A non-negative input (a mass fraction, a moisture of 0 %) is never stepped below zero: forward difference there.
+    if (xi >= 0 && xi - h < 0) return (f(up) - value) / h
     const dn = [...x]; dn[i] = xi - h
     return (f(up) - f(dn)) / (2 * h)
   })
