@@ -9,10 +9,11 @@ import { and, eq, inArray, sql } from 'drizzle-orm'
 import { drizzle } from 'drizzle-orm/node-postgres'
 import pg from 'pg'
 import * as schema from '../server/database/schema'
-import { computeResultValues, resultHash, type ResultInputs } from '../server/utils/results'
+import { resultHash } from '../server/utils/results'
 import { assess, resolveComponents, type ChargeComponentInput } from '../shared/domain/assessment'
 import { DEFAULT_POLICY, labPolicySchema } from '../shared/domain/policy'
-import { mean, seriesStatistics } from '../shared/domain/results'
+import { computeResultValues, mean, seriesStatistics } from '../shared/domain/results'
+import type { ResultInputs } from '../shared/schemas/results'
 import { computeVesselState, type VesselCondition } from '../shared/domain/vessel-state'
 import { componentFromMaterial } from '../shared/material-component'
 import type { RunComponent } from '../shared/schemas/plans'
@@ -143,7 +144,7 @@ async function seedPlan(tx: Tx, name: string, spec: typeof PLAN[string], policy:
       const theta = (r.massG * r.target + fuseJ + acidJ + bias) / energyEquivalent!.valueJPerK
       inputs = { ...baseInputs, temperatureRiseK: Number(theta.toFixed(5)) }
     }
-    const values = computeResultValues(inputs, { kind: r.kind, weighedMassG: r.massG, components: resolved, energyEquivalent: r.kind === 'sample' ? energyEquivalent : null, aidUncertaintyJPerG: null, policy })
+    const values = computeResultValues(inputs, { kind: r.kind, weighedMassG: r.massG, components: resolved, energyEquivalent: r.kind === 'sample' ? energyEquivalent : null, aid: null, cotton: null, policy })
     const [result] = await tx.insert(schema.results).values({
       runId: run!.id, firingId, vesselId: vessel.id, sampleCode: r.sampleCode, kind: r.kind, revision: 1, current: true, inputs, values,
       energyEquivalentId: r.kind === 'sample' ? energyEquivalent!.id : null, status: 'unsigned', createdBy: analyst.id, createdAt: new Date(firedAt.getTime() + HOUR),

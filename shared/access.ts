@@ -126,4 +126,6 @@ export const API_ACCESS: Readonly<Record<string, Who>> = {
   'POST /api/day-plans': ['analyst'],
   'GET /api/day-plans': 'all',
   'GET /api/samples/[id]/label.svg': 'all',
+  'GET /api/aid-values': ['analyst', 'supervisor', 'admin'],
+  'POST /api/aid-values': ['supervisor'],
 }

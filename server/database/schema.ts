@@ -324,6 +324,24 @@ export const energyEquivalents = pgTable('energy_equivalents', {
   active: boolean('active').notNull().default(true),
 }, t => [index('energy_equivalents_vessel_idx').on(t.vesselId, t.acceptedAt)])
 
+// Heating values of combustion aids and the cotton fuse as the lab determined them: a small series accepted by signature.
+export const aidValues = pgTable('aid_values', {
+  id: id(),
+  kind: text('kind').notNull(), // 'capsule' | 'tape' | 'oil' | 'cotton' | 'other'
+  materialId: uuid('material_id').references(() => materials.id),
+  lot: text('lot').notNull().default(''),
+  determinationsJPerG: jsonb('determinations_j_per_g').notNull().$type<number[]>(),
+  runs: integer('runs').notNull(),
+  meanJPerG: doublePrecision('mean_j_per_g').notNull(),
+  standardDeviationJPerG: doublePrecision('standard_deviation_j_per_g').notNull(),
+  standardUncertaintyJPerG: doublePrecision('standard_uncertainty_j_per_g').notNull(),
+  note: text('note').notNull().default(''),
+  acceptedBy: uuid('accepted_by').notNull().references(() => users.id),
+  signatureId: uuid('signature_id'),
+  acceptedAt: timestamp('accepted_at', { withTimezone: true }).notNull().defaultNow(),
+  active: boolean('active').notNull().default(true),
+}, t => [index('aid_values_material_idx').on(t.materialId, t.active), index('aid_values_kind_idx').on(t.kind, t.active)])
+
 // Certificates of analysis: a unique, never reused report number per issued certificate.
 export const reports = pgTable('reports', {
   id: id(),

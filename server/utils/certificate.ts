@@ -1,4 +1,4 @@
-// Certificate of analysis (issue 5): the content snapshot stored with the report number, and its PDF.
+// Certificate of analysis: the content snapshot stored with the report number, and its PDF.
 // The items follow ISO/IEC 17025:2017 §7.8.2.1: title, laboratory, unique identification and page x of y, sample,
 // method, dates of test and issue, results with units and uncertainty, the person authorising, a clear end.
 import { existsSync, readFileSync } from 'node:fs'
@@ -46,78 +46,25 @@ export interface CertificateContent {
   statements: string[]
   /** The client and the item as received (added when the certificate is issued; see certificate-items.ts). */
   receipt?: import('./certificate-items').CertificateReceipt
+  /** Shown prominently under the sample: provisional values, a single determination. */
+  notices?: string[]
+  /** The acid correction convention used, in words. */
+  acidConvention?: string | null
 }
 
-const FONT_FILE = '@fontsource-variable/inter/files/inter-latin-wght-normal.woff2'
+// Static (non-variable) WOFF files of Inter: pdfkit embeds and subsets them as they are, with a real bold.
+const FONT_FILES = { regular: '@fontsource/inter/files/inter-latin-400-normal.woff', bold: '@fontsource/inter/files/inter-latin-700-normal.woff' } as const
 
-/** The shipped Inter font (latin subset), found from the server bundle or the project root; null when absent. */
-function interFont(): Buffer | null {
+/** One shipped Inter weight (latin subset), found from the server bundle or the project root; null when absent. */
+function interFont(file: string): Buffer | null {
   const candidates: string[] = []
   try {
-    candidates.push(createRequire(import.meta.url).resolve(FONT_FILE))
+    candidates.push(createRequire(import.meta.url).resolve(file))
   }
   catch { /* not resolvable from the bundle */ }
-  candidates.push(join(process.cwd(), 'node_modules', FONT_FILE))
-  for (const file of candidates) if (existsSync(file)) return readFileSync(file)
+  candidates.push(join(process.cwd(), 'node_modules', file))
+  for (const f of candidates) if (existsSync(f)) return readFileSync(f)
   return null
-}
-
-interface ContourPoint { onCurve: boolean, x: number, y: number }
-interface SubsetLike {
-  font: { getGlyph: (gid: number) => { _getContours: () => ContourPoint[][], advanceWidth: number, _getMetrics: () => { leftBearing: number } } }
-  glyf: Uint8Array[]
-  loca: { offsets: number[] }
-  hmtx: { metrics: { advance: number, bearing: number }[] }
-  offset: number
-  _addGlyph: (gid: number) => number
-}
-
-/** A TrueType simple glyph (OpenType 'glyf' format) from decoded contours: no hinting, 16-bit deltas, padded to 4 bytes. */
-function encodeSimpleGlyph(contours: ContourPoint[][]): Uint8Array {
-  const kept = contours.filter(c => c.length > 0)
-  const pts = kept.flat().map(p => ({ on: p.onCurve, x: Math.round(p.x), y: Math.round(p.y) }))
-  if (!pts.length) return new Uint8Array(0)
-  const n = pts.length
-  const size = 10 + 2 * kept.length + 2 + n + 4 * n
-  const buf = new Uint8Array(size + ((4 - (size % 4)) % 4))
-  const view = new DataView(buf.buffer)
-  const xs = pts.map(p => p.x)
-  const ys = pts.map(p => p.y)
-  view.setInt16(0, kept.length)
-  view.setInt16(2, Math.min(...xs))
-  view.setInt16(4, Math.min(...ys))
-  view.setInt16(6, Math.max(...xs))
-  view.setInt16(8, Math.max(...ys))
-  let o = 10
-  let end = -1
-  for (const c of kept) { end += c.length; view.setUint16(o, end); o += 2 }
-  view.setUint16(o, 0) // no instructions
-  o += 2
-  for (const p of pts) buf[o++] = p.on ? 1 : 0
-  let last = 0
-  for (const p of pts) { view.setInt16(o, p.x - last); last = p.x; o += 2 }
-  last = 0
-  for (const p of pts) { view.setInt16(o, p.y - last); last = p.y; o += 2 }
-  return buf
-}
-
-/**
- * fontkit 2.0.4 subsets a WOFF2 font by copying glyph records from its 'glyf' table, which WOFF2 stores transformed:
- * composite glyphs (i, j, é…) crash it. Re-encoding each glyph from its decoded outline gives a valid TrueType subset.
- */
-function patchWoff2Subset(doc: PDFKit.PDFDocument): boolean {
-  const subset = (doc as unknown as { _font?: { subset?: SubsetLike } })._font?.subset
-  if (!subset || typeof subset._addGlyph !== 'function' || typeof subset.font?.getGlyph !== 'function') return false
-  subset._addGlyph = function (this: SubsetLike, gid: number) {
-    const glyph = this.font.getGlyph(gid)
-    const record = encodeSimpleGlyph(glyph._getContours())
-    this.glyf.push(record)
-    this.loca.offsets.push(this.offset)
-    this.hmtx.metrics.push({ advance: glyph.advanceWidth, bearing: glyph._getMetrics().leftBearing })
-    this.offset += record.length
-    return this.glyf.length - 1
-  }
-  return true
 }
 
 const INK = '#1f1a17'
@@ -142,29 +89,25 @@ export async function renderCertificatePdf(content: CertificateContent, report: 
     doc.on('error', reject)
   })
 
-  // Inter for everything when it loads and subsets; otherwise the standard Helvetica (text stays correct).
+  // Inter (regular and bold) when the files are there; otherwise the standard Helvetica (text stays correct).
   let regular = 'Helvetica'
   let bold = 'Helvetica-Bold'
-  const inter = interFont()
-  if (inter) {
+  const interRegular = interFont(FONT_FILES.regular)
+  const interBold = interFont(FONT_FILES.bold)
+  if (interRegular && interBold) {
     try {
-      doc.registerFont('Inter', inter)
-      doc.font('Inter')
-      if (patchWoff2Subset(doc)) {
-        regular = 'Inter'
-        bold = 'Inter'
-      }
+      doc.registerFont('Inter', interRegular)
+      doc.registerFont('Inter-Bold', interBold)
+      regular = 'Inter'
+      bold = 'Inter-Bold'
     }
     catch (err) {
       console.warn('[certificate] Inter could not be embedded, using Helvetica:', (err as Error).message)
     }
   }
   doc.font(regular)
-  // The variable font has one instance here: headings are drawn filled and stroked for weight.
   const strong = (text: string, x: number | undefined, y: number | undefined, opts: PDFKit.Mixins.TextOptions = {}) => {
-    doc.fillColor(INK)
-    if (bold === regular) doc.font(regular).lineWidth(0.35).strokeColor(INK).text(text, x, y, { ...opts, fill: true, stroke: true })
-    else doc.font(bold).text(text, x, y, opts)
+    doc.fillColor(INK).font(bold).text(text, x, y, opts)
     doc.font(regular)
   }
   const left = doc.page.margins.left
@@ -200,6 +143,20 @@ export async function renderCertificatePdf(content: CertificateContent, report: 
   field('Determinations', `${content.determinations.length}, tested ${day(content.testedFrom)}${content.testedTo && day(content.testedTo) !== day(content.testedFrom) ? ` to ${day(content.testedTo)}` : ''}`)
   field('Method', content.method.join(' '))
   if (content.replaces) field('Amendment', `This report replaces report No. ${content.replaces}.`)
+
+  // What a reader must not miss: provisional values, a single determination.
+  const notices = content.notices ?? []
+  if (notices.length) {
+    y += 4
+    doc.fontSize(9.5)
+    const text = notices.join('\n')
+    const h = doc.heightOfString(text, { width: width - 16 }) + 12
+    doc.rect(left, y, width, h).fill('#fdecd8')
+    doc.rect(left, y, 3, h).fill(EMBER)
+    doc.fillColor(INK).font(bold).text(text, left + 10, y + 6, { width: width - 16 })
+    doc.font(regular)
+    y += h + 4
+  }
 
   // Results table.
   y += 6

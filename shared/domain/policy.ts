@@ -1,6 +1,7 @@
 // The lab's adjustable rules: every threshold the assessment uses comes from here, never from a literal in a rule.
 import { z } from 'zod'
 import { SPECIFIC_ENERGY_UNITS, type SpecificEnergyUnit } from './specific-energy'
+import { ACID_CONVENTIONS, type AcidConvention } from './results/acid'
 
 export interface FuseWireEnergies {
   nichrome: number
@@ -55,6 +56,21 @@ export interface LabPolicy {
   workdayStartHour: number
   workdayHours: number
   energyEquivalentMaxAgeDays: number
+  /** Results: the acid convention in force when a result names no acid measurement. */
+  acidConvention: AcidConvention
+  totalAcidSulfurJPerPctG: number
+  chlorineJPerPctG: number
+  reproducibilityJPerG: number
+  /** Degrees of freedom of the lab's own duplicates before their pooled s_r replaces r/2.8. */
+  ownRepeatabilityMinDof: number
+  standardCertifiedValueJPerG: number
+  standardCertifiedUncertaintyJPerG: number
+  standardCertifiedCoverageFactor: number
+  buoyancyCorrection: boolean
+  buoyancyAirGPerMl: number
+  buoyancyStandardGPerMl: number
+  buoyancyWeightsGPerMl: number
+  singleDeterminationCertificates: boolean
 }
 
 export const DEFAULT_POLICY: LabPolicy = {
@@ -104,6 +120,19 @@ export const DEFAULT_POLICY: LabPolicy = {
   workdayStartHour: 8,
   workdayHours: 8,
   energyEquivalentMaxAgeDays: 30,
+  acidConvention: 'nitric-acid',
+  totalAcidSulfurJPerPctG: 57.5,
+  chlorineJPerPctG: 21.1,
+  reproducibilityJPerG: 300,
+  ownRepeatabilityMinDof: 10,
+  standardCertifiedValueJPerG: 26434,
+  standardCertifiedUncertaintyJPerG: 3,
+  standardCertifiedCoverageFactor: 2,
+  buoyancyCorrection: false,
+  buoyancyAirGPerMl: 0.0012,
+  buoyancyStandardGPerMl: 1.32,
+  buoyancyWeightsGPerMl: 8.0,
+  singleDeterminationCertificates: false,
 }
 
 const positive = () => z.number().positive()
@@ -161,6 +190,19 @@ export const labPolicySchema = z
     workdayStartHour: z.number().int().min(0).max(23),
     workdayHours: z.number().gt(0).max(24),
     energyEquivalentMaxAgeDays: count().max(3650),
+    acidConvention: z.enum(ACID_CONVENTIONS as [AcidConvention, ...AcidConvention[]]),
+    totalAcidSulfurJPerPctG: nonNegative().max(500),
+    chlorineJPerPctG: nonNegative().max(500),
+    reproducibilityJPerG: positive().max(10000),
+    ownRepeatabilityMinDof: count().max(1000),
+    standardCertifiedValueJPerG: positive().max(100000),
+    standardCertifiedUncertaintyJPerG: nonNegative().max(1000),
+    standardCertifiedCoverageFactor: positive().max(10),
+    buoyancyCorrection: z.boolean(),
+    buoyancyAirGPerMl: positive().max(0.01),
+    buoyancyStandardGPerMl: z.number().min(0.1).max(25),
+    buoyancyWeightsGPerMl: z.number().min(1).max(25),
+    singleDeterminationCertificates: z.boolean(),
   })
   .strict()
   .refine(p => p.fillPressureWindowMinMPa <= p.fillPressureWindowMaxMPa, {
@@ -243,4 +285,17 @@ export const POLICY_DESCRIPTIONS: Readonly<Record<keyof LabPolicy, PolicyDescrip
   workdayStartHour: { label: 'Bench day starts at', unit: 'hour (0–23)', source: LAB },
   workdayHours: { label: 'Bench day length', unit: 'hours', source: LAB },
   energyEquivalentMaxAgeDays: { label: 'Check run first when the energy equivalent is older than', unit: 'days', source: LAB },
+  acidConvention: { label: 'Acid correction convention when a result names no acid measurement', unit: '—', source: `${LAB} (ISO 1928 corrects nitric acid alone; ASTM D5865 titrates total acid)` },
+  totalAcidSulfurJPerPctG: { label: 'Sulfur correction after a total-acid titration', unit: 'J per (% S × g)', source: 'ASTM D5865, acid correction after a total-acid titration' },
+  chlorineJPerPctG: { label: 'Chlorine correction (hydrochloric acid formed)', unit: 'J per (% Cl × g)', source: `${LAB}: HCl(g) → HCl(aq), 74.85 kJ/mol` },
+  reproducibilityJPerG: { label: 'Reproducibility limit R between laboratories', unit: 'J/g', source: 'ISO 1928, precision: R = 300 J/g' },
+  ownRepeatabilityMinDof: { label: 'Use the lab\'s own duplicate scatter from', unit: 'degrees of freedom', source: LAB },
+  standardCertifiedValueJPerG: { label: 'Certified value of the reference benzoic acid (mass in vacuum)', unit: 'J/g', source: 'NIST SRM 39j certificate' },
+  standardCertifiedUncertaintyJPerG: { label: 'Uncertainty stated on its certificate', unit: 'J/g', source: 'NIST SRM 39j certificate' },
+  standardCertifiedCoverageFactor: { label: 'Coverage factor of that uncertainty', unit: 'k', source: `${LAB}, from the certificate of the lot in use` },
+  buoyancyCorrection: { label: 'Correct the certified value for air buoyancy (masses weighed in air)', unit: 'yes / no', source: LAB },
+  buoyancyAirGPerMl: { label: 'Density of air at the balance', unit: 'g/mL', source: 'OIML R 111-1, conventional density of air' },
+  buoyancyStandardGPerMl: { label: 'Density of benzoic acid', unit: 'g/mL', source: `${LAB} (handbook density)` },
+  buoyancyWeightsGPerMl: { label: 'Density of the balance weights', unit: 'g/mL', source: 'OIML R 111-1, conventional density of weights' },
+  singleDeterminationCertificates: { label: 'Certificates from a single determination', unit: 'yes / no', source: `${LAB} (ISO 1928 asks for duplicates)` },
 }

@@ -1,14 +1,15 @@
 // Mathjs-free specific-energy conversion for the pages; units.ts holds the general (mathjs) version.
 
-/** Display units a lab may choose; 'cal/g' is the international-table calorie per gram. */
-export const SPECIFIC_ENERGY_UNITS = ['J/g', 'MJ/kg', 'cal/g', 'Btu/lb'] as const
+/** Display units a lab may choose; 'cal/g' is the international-table calorie per gram, 'cal_th/g' the thermochemical one. */
+export const SPECIFIC_ENERGY_UNITS = ['J/g', 'MJ/kg', 'cal/g', 'cal_th/g', 'Btu/lb'] as const
 export type SpecificEnergyUnit = (typeof SPECIFIC_ENERGY_UNITS)[number]
 
-// J/g per one unit: cal_IT = 4.1868 J, 1 Btu_IT/lb = 2.326 J/g exactly (NIST SP 811, App. B).
+// J/g per one unit: cal_IT = 4.1868 J, cal_th = 4.184 J, 1 Btu_IT/lb = 2.326 J/g exactly (NIST SP 811, App. B).
 const J_PER_G: Readonly<Record<SpecificEnergyUnit, number>> = {
   'J/g': 1,
   'MJ/kg': 1000,
   'cal/g': 4.1868,
+  'cal_th/g': 4.184,
   'Btu/lb': 2.326,
 }
 
@@ -17,6 +18,7 @@ const DECIMALS: Readonly<Record<SpecificEnergyUnit, number>> = {
   'J/g': 0,
   'MJ/kg': 3,
   'cal/g': 1,
+  'cal_th/g': 1,
   'Btu/lb': 0,
 }
 

@@ -5,7 +5,7 @@ import { absoluteToGaugeMPa, gaugeToAbsoluteMPa, STANDARD_ATMOSPHERE_MPA } from 
 export { absoluteToGaugeMPa, gaugeToAbsoluteMPa, STANDARD_ATMOSPHERE_MPA }
 
 export const ENERGY_UNITS = ['J', 'kJ', 'cal_th', 'cal_IT', 'Btu_IT'] as const
-export const SPECIFIC_ENERGY_UNIT_NAMES = ['J/g', 'MJ/kg', 'cal_IT/g', 'Btu/lb'] as const
+export const SPECIFIC_ENERGY_UNIT_NAMES = ['J/g', 'MJ/kg', 'cal_IT/g', 'cal_th/g', 'Btu/lb'] as const
 export const PRESSURE_UNITS = ['MPa', 'bar', 'atm', 'psi'] as const
 export const MASS_UNITS = ['g', 'mg'] as const
 export const VOLUME_UNITS = ['mL', 'L'] as const
@@ -26,6 +26,7 @@ const MATHJS_NAME: Readonly<Record<string, string>> = {
   'J/g': 'J/g',
   'MJ/kg': 'MJ/kg',
   'cal_IT/g': 'calIT/g',
+  'cal_th/g': 'calth/g',
   'Btu/lb': 'BtuIT/lb',
   'MPa': 'MPa',
   'bar': 'bar',
@@ -66,7 +67,7 @@ export function convertEnergy(value: number, from: EnergyUnit, to: EnergyUnit): 
   return convert(value, from, to)
 }
 
-/** Converts specific energy between J/g, MJ/kg, cal_IT/g and Btu/lb (NIST SP 811, Appendix B). */
+/** Converts specific energy between J/g, MJ/kg, cal_IT/g, cal_th/g and Btu/lb (NIST SP 811, Appendix B). */
 export function convertSpecificEnergy(value: number, from: SpecificEnergyUnitName, to: SpecificEnergyUnitName): number {
   return convert(value, from, to)
 }

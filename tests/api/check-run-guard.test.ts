@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { as, call, unique } from '../support/api'
 import { auditRows } from '../support/db'
-import { benzoicAcidId, registerVessel, standardisedVessel } from '../unit/bench/bench-api'
+import { BA_J_PER_G, benzoicAcidId, registerVessel, standardisedVessel } from '../unit/bench/bench-api'
 
 // A check run is compared with the vessel's accepted energy equivalent: without one it is refused when it is
 // planned, before anything is signed or fired. Charge: 1 g benzoic acid, 26 454 J/g weighed in air (NIST SRM 39j).

@@ -59,8 +59,10 @@ describe('benzoic acid as an unknown (NIST SRM 39j)', () => {
     expect(v.netConstantPressureJPerG.dry).toBeCloseTo(BA_J_PER_G - 212.2 * H_PCT - 0.8 * O_PCT, 1) // ≈ 25 382 J/g
     // JCGM 100:2008 eq. (10): contributions c·u of ε, θ, m and the fuse (acid, sulfur and aid are 0 here).
     const uEps = EPS_S / Math.sqrt(5)
-    const parts = [(theta / m) * uEps, (EPS_MEAN / m) * 0.001, (BA_J_PER_G / m) * 0.0001, (0.1 * FUSE_10CM_J) / m]
-    const uc = Math.sqrt(parts.reduce((a, p) => a + p * p, 0)) // ≈ 18.2 J/g
+    // Also the certified value of the standard (NIST SRM 39j: ± 3 J/g taken as U with k = 2, from memory; c = (θ/m)·ε/26 434)
+    // and the repeatability of one determination, s_r = r/2.8 = 42.86 J/g (ISO 1928 r = 120 J/g; ISO 5725-6).
+    const parts = [(theta / m) * uEps, (EPS_MEAN / m) * 0.001, (BA_J_PER_G / m) * 0.0001, (0.1 * FUSE_10CM_J) / m, (theta / m) * (EPS_MEAN / 26_434) * 1.5, 120 / 2.8]
+    const uc = Math.sqrt(parts.reduce((a, p) => a + p * p, 0)) // ≈ 46.6 J/g
     expect(v.energyEquivalent.standardUncertaintyJPerK).toBeCloseTo(uEps, 9)
     expect(v.uncertainty.combinedStandardUncertaintyJPerG).toBeCloseTo(uc, 6)
     expect(v.uncertainty.coverageFactor).toBe(2)

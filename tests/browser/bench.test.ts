@@ -1,8 +1,8 @@
 import { readFile } from 'node:fs/promises'
 import { describe, expect, it } from 'vitest'
-import { unique } from '../support/api'
+import { as, call, unique } from '../support/api'
 import { SCREENSHOT_DIR, openPage, shot, signInAs } from '../support/browser'
-import { BA_J_PER_G, FUSE_10CM_J, benzoicAcidId, fire, readyRuns, registerVessel, standardisedVessel } from '../unit/bench/bench-api'
+import { BA_J_PER_G, FUSE_10CM_J, PASSWORD, benzoicAcidId, enterResult, fire, readyRuns, registerVessel, standardisedVessel } from '../unit/bench/bench-api'
 import { pdfText } from '../unit/bench/pdf-text'
 import { synthesiseThermogram, thermogramCsv } from '../unit/bench/synthetic-thermogram'
 
@@ -53,11 +53,21 @@ describe('bench: firing, thermogram, result, sign-off, certificate', () => {
     expect(Math.abs(gross - BA_J_PER_G)).toBeLessThanOrEqual(6)
     await page.getByTestId(`fired-${code}`).screenshot({ path: `${SCREENSHOT_DIR}/bench-result.png` })
 
-    // The supervisor signs it off from the result page and issues the certificate.
+    // A certificate needs agreeing duplicates (lab policy): a second determination of the sample, typed θ, signed off.
+    const [dup] = await readyRuns(vessel.id, [{ sampleCode: code, materialId: await benzoicAcidId(), massG: 0.8 }])
+    expect((await fire(dup!.id, { weighedMassG: 0.8 })).status).toBe(201)
+    const second = await enterResult(dup!.id, { temperatureRiseK: theta, fuse: { wire: 'nichrome', burntLengthCm: 10 }, moistureAdPct: 0 })
+    expect(second.status).toBe(201)
+    expect((await call('POST', `/api/results/${second.body.result.id}/sign`, { cookie: await as('supervisor'), body: { password: PASSWORD, reason: 'duplicate checked' } })).status).toBe(200)
+    const first = (await call('GET', `/api/results?sampleCode=${code}`, { cookie: await as('analyst') })).body.rows.find((r: { id: string }) => r.id !== second.body.result.id)
+
+    // The supervisor signs the first off from the result page and issues the certificate.
     await page.getByRole('button', { name: 'Sign out' }).click()
     await signInAs(page, 'supervisor@emberline.test')
-    await page.goto('/bench')
-    await page.getByTestId(`open-result-${code}`).click()
+    await page.goto(`/results/${first.id}`)
+    await expect.poll(() => page.getByTestId('uncertainty-budget').isVisible()).toBe(true)
+    await expect.poll(() => page.getByTestId('legend-method').textContent()).toContain('θ used: Regnault–Pfaundler')
+    await page.getByTestId('uncertainty-budget').screenshot({ path: `${SCREENSHOT_DIR}/result-budget.png` })
     await page.getByTestId('sign-reason').fill('Corrections and thermogram checked')
     await page.getByTestId('sign-password').fill('ember-demo-2026')
     await page.getByTestId('sign-submit').click()

@@ -1,4 +1,21 @@
 CREATE SEQUENCE "public"."sample_lab_code_seq" INCREMENT BY 1 MINVALUE 1 MAXVALUE 9223372036854775807 START WITH 1 CACHE 1;--> statement-breakpoint
+CREATE TABLE "aid_values" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"kind" text NOT NULL,
+	"material_id" uuid,
+	"lot" text DEFAULT '' NOT NULL,
+	"determinations_j_per_g" jsonb NOT NULL,
+	"runs" integer NOT NULL,
+	"mean_j_per_g" double precision NOT NULL,
+	"standard_deviation_j_per_g" double precision NOT NULL,
+	"standard_uncertainty_j_per_g" double precision NOT NULL,
+	"note" text DEFAULT '' NOT NULL,
+	"accepted_by" uuid NOT NULL,
+	"signature_id" uuid,
+	"accepted_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"active" boolean DEFAULT true NOT NULL
+);
+--> statement-breakpoint
 CREATE TABLE "clients" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"name" text NOT NULL,
@@ -72,12 +89,16 @@ ALTER TABLE "runs" ADD COLUMN "edited_by" uuid[] DEFAULT '{}'::uuid[] NOT NULL;-
 ALTER TABLE "runs" ADD COLUMN "submitted_by" uuid[] DEFAULT '{}'::uuid[] NOT NULL;--> statement-breakpoint
 ALTER TABLE "runs" ADD COLUMN "status_reason" text;--> statement-breakpoint
 ALTER TABLE "vessels" ADD COLUMN "halogen_resistant" boolean DEFAULT false NOT NULL;--> statement-breakpoint
+ALTER TABLE "aid_values" ADD CONSTRAINT "aid_values_material_id_materials_id_fk" FOREIGN KEY ("material_id") REFERENCES "public"."materials"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "aid_values" ADD CONSTRAINT "aid_values_accepted_by_users_id_fk" FOREIGN KEY ("accepted_by") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "clients" ADD CONSTRAINT "clients_created_by_users_id_fk" FOREIGN KEY ("created_by") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "day_plans" ADD CONSTRAINT "day_plans_accepted_by_users_id_fk" FOREIGN KEY ("accepted_by") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "samples" ADD CONSTRAINT "samples_client_id_clients_id_fk" FOREIGN KEY ("client_id") REFERENCES "public"."clients"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "samples" ADD CONSTRAINT "samples_material_id_materials_id_fk" FOREIGN KEY ("material_id") REFERENCES "public"."materials"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "samples" ADD CONSTRAINT "samples_received_by_users_id_fk" FOREIGN KEY ("received_by") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "user_sessions" ADD CONSTRAINT "user_sessions_user_id_users_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
+CREATE INDEX "aid_values_material_idx" ON "aid_values" USING btree ("material_id","active");--> statement-breakpoint
+CREATE INDEX "aid_values_kind_idx" ON "aid_values" USING btree ("kind","active");--> statement-breakpoint
 CREATE INDEX "day_plans_day_idx" ON "day_plans" USING btree ("day");--> statement-breakpoint
 CREATE INDEX "samples_status_idx" ON "samples" USING btree ("status","received_at");--> statement-breakpoint
 CREATE INDEX "samples_client_idx" ON "samples" USING btree ("client_id");--> statement-breakpoint

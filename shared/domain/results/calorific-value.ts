@@ -76,13 +76,18 @@ export function nitricAcidCorrectionJ(nitricAcidMol: number, formationJPerMol: n
   return nitricAcidMol * formationJPerMol
 }
 
-/** e_S (J) = 57.5 × S (mass-%, analysis sample) × m (g), after a total-acid titration counted as HNO3 — ASTM D240 / D5865 (from memory). */
-export function sulfurCorrectionJ(sulfurPct: number, sampleMassG: number, jPerPctG: number = SULFUR_CORRECTION_J_PER_PCT_G): number {
-  assertNonNegative(sulfurPct, 'sulfurPct')
-  if (sulfurPct > 100) throw new RangeError(`sulfurPct must be at most 100 (got ${sulfurPct})`)
+/** e (J) = coefficient (J per % × g) × element (mass-%, analysis sample) × m (g): the shape of the sulfur and chlorine corrections. */
+export function elementCorrectionJ(elementPct: number, sampleMassG: number, jPerPctG: number, name: string): number {
+  assertNonNegative(elementPct, name)
+  if (elementPct > 100) throw new RangeError(`${name} must be at most 100 (got ${elementPct})`)
   assertPositive(sampleMassG, 'sampleMassG')
   assertNonNegative(jPerPctG, 'jPerPctG')
-  return jPerPctG * sulfurPct * sampleMassG
+  return jPerPctG * elementPct * sampleMassG
+}
+
+/** e_S (J) = 57.5 × S (mass-%, analysis sample) × m (g), after a total-acid titration counted as HNO3 — ASTM D240 / D5865 (from memory). */
+export function sulfurCorrectionJ(sulfurPct: number, sampleMassG: number, jPerPctG: number = SULFUR_CORRECTION_J_PER_PCT_G): number {
+  return elementCorrectionJ(sulfurPct, sampleMassG, jPerPctG, 'sulfurPct')
 }
 
 export interface NetCalorificValueInput {

@@ -36,7 +36,7 @@ describe('lab policy', () => {
   it('shows pages a standard and clause or the lab\'s own decision, never a provenance note', () => {
     for (const [key, d] of Object.entries(POLICY_DESCRIPTIONS)) {
       expect(d.source, key).not.toMatch(/from memory|common practice|secondary/i)
-      expect(d.source, key).toMatch(/^(The lab's own decision|UN Manual of Tests and Criteria, Appendix 6, (clause|section) |NIST S|Stoichiometry|Conversion factors: NIST SP 811)/)
+      expect(d.source, key).toMatch(/^(The lab's own decision|UN Manual of Tests and Criteria, Appendix 6, (clause|section) |NIST S|Stoichiometry|Conversion factors: NIST SP 811|ISO \d|ASTM D\d|OIML R )/)
     }
   })
 })

@@ -43,7 +43,7 @@ describe('unit factors', () => {
 })
 
 describe('the mathjs-free specific-energy module', () => {
-  const mathjsName: Record<SpecificEnergyUnit, SpecificEnergyUnitName> = { 'J/g': 'J/g', 'MJ/kg': 'MJ/kg', 'cal/g': 'cal_IT/g', 'Btu/lb': 'Btu/lb' }
+  const mathjsName: Record<SpecificEnergyUnit, SpecificEnergyUnitName> = { 'J/g': 'J/g', 'MJ/kg': 'MJ/kg', 'cal/g': 'cal_IT/g', 'cal_th/g': 'cal_th/g', 'Btu/lb': 'Btu/lb' }
 
   it('agrees with the mathjs conversion for every display unit', () => {
     const random = seededRandom(811)

@@ -35,7 +35,7 @@ export async function benzoicAcidId(): Promise<string> {
   return baId!
 }
 
-export interface RunSpec { sampleCode?: string, kind?: 'sample' | 'standardisation' | 'check', massG?: number, heatingValueJPerG?: number, materialId?: string, aidMassG?: number, smiles?: string }
+export interface RunSpec { sampleCode?: string, kind?: 'sample' | 'standardisation' | 'check', massG?: number, heatingValueJPerG?: number, materialId?: string, aidMassG?: number, aidMaterialId?: string, smiles?: string }
 
 /** A plan on the vessel with one run per spec, submitted; returns the runs with their status after submission. */
 export async function plannedRuns(vesselId: string, specs: RunSpec[], cookie?: string) {
@@ -51,7 +51,7 @@ export async function plannedRuns(vesselId: string, specs: RunSpec[], cookie?: s
       ? { role: 'sample', materialId, massG: s.massG ?? 1 }
       : { role: 'sample', name: 'test sample', massG: s.massG ?? 1, heatingValueJPerG: s.heatingValueJPerG ?? BA_J_PER_G, smiles: s.smiles ?? 'OC(=O)c1ccccc1' }
     const components: Record<string, unknown>[] = [sample, { role: 'fuse', wire: 'nichrome', lengthCm: 10 }]
-    if (s.aidMassG) components.push({ role: 'aid', materialId: aidId, massG: s.aidMassG })
+    if (s.aidMassG) components.push({ role: 'aid', materialId: s.aidMaterialId ?? aidId, massG: s.aidMassG })
     const r = await call('POST', `/api/plans/${plan.body.id}/runs`, { cookie: analyst, body: { sampleCode: s.sampleCode ?? unique('S'), kind: s.kind ?? 'sample', components } })
     expect(r.status, JSON.stringify(r.body)).toBe(201)
     runs.push({ id: r.body.id, sampleCode: r.body.sampleCode })

@@ -44,6 +44,18 @@ describe('certificate of analysis PDF', () => {
     }
   })
 
+  it('embeds a real bold weight (static Inter 700), no synthetic stroking, and shows the notices prominently', async () => {
+    const pdf = await renderCertificatePdf(content({ notices: ['SINGLE DETERMINATION: one determination without a duplicate.', 'PROVISIONAL: a typical value was used.'] }), { reportNumber: 1009, issuedAt: new Date('2026-11-30T08:15:00Z') }, { compress: false })
+    const raw = pdf.toString('latin1')
+    expect(raw).toMatch(/\/BaseFont \/[A-Z]{6}\+Inter-Regular/)
+    expect(raw).toMatch(/\/BaseFont \/[A-Z]{6}\+Inter-Bold/)
+    // Fill-and-stroke text rendering (mode 2) was the old fake bold.
+    expect(raw).not.toMatch(/\b2 Tr\b/)
+    const text = pdfText(pdf)
+    expect(text).toContain('SINGLE DETERMINATION')
+    expect(text).toContain('PROVISIONAL')
+  })
+
   it('numbers every page when the determinations run over one page', async () => {
     const many = Array.from({ length: 60 }, (_, i) => ({ ...content().determinations[0]!, resultId: String(i) }))
     const text = pdfText(await renderCertificatePdf(content({ determinations: many }), { reportNumber: 1008, issuedAt: new Date() }))
