@@ -112,7 +112,7 @@ async function seedPlan(tx: Tx, name: string, spec: typeof PLAN[string], policy:
     await tx.insert(schema.auditLog).values({ action: 'run.submit', entity: 'run', entityId: run!.id, actorId: analyst.id, actorName: analyst.name, newValues: { status: 'ready', verdict: assessment.verdict }, reason: 'demo bench loaded' })
     if (r.ready) continue
 
-    // The firing and its count, together (DESIGN.md §5): the database adds one to each counter.
+    // The firing and its count, together: the database adds one to each counter.
     const firingId = randomUUID()
     const [counted] = await tx.update(schema.vessels).set({
       firingsSinceService: sql`${schema.vessels.firingsSinceService} + 1`,

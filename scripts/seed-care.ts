@@ -1,4 +1,4 @@
-// Adds the demo lab's vessel care history (issue 6) to NUXT_DATABASE_URL: a routine seal service of KR-1 and KR-3
+// Adds the demo lab's vessel care history to NUXT_DATABASE_URL: a routine seal service of KR-1 and KR-3
 // on their last service dates, the last requalification of KR-1 with its certificate, and the lock-out record of
 // KR-5. Run after scripts/seed.ts. Idempotent: each record carries a seed key and is added once.
 // Files go to the uploads store the server reads (EMBERLINE_UPLOAD_DIR, default .data/uploads, from the folder it runs in).

@@ -10,7 +10,7 @@ import {
   vesselInputSchema,
 } from '#shared/domain/assessment'
 
-// DESIGN §6: the vessel comes from the register (vesselId, with its current state) or inline; one of them is needed.
+// The vessel comes from the register (vesselId, with its current state) or inline; one of them is needed.
 // A sample without a mass is assessed at the suggested mass; an aid or a fuse without its amount cannot be assessed.
 const assessBodySchema = chargeInputSchema
   .extend({

@@ -23,7 +23,7 @@ export const users = pgTable('users', {
   updatedAt: updatedAt(),
 })
 
-// One row per lab: the policy values of DESIGN.md with their defaults, edited by an admin.
+// One row per lab: the policy values with their defaults, edited by an admin.
 export const labSettings = pgTable('lab_settings', {
   id: integer('id').primaryKey().default(1),
   labName: text('lab_name').notNull(),
@@ -79,7 +79,7 @@ export const userSessions = pgTable('user_sessions', {
   revokedReason: text('revoked_reason'),
 }, t => [index('user_sessions_user_idx').on(t.userId, t.revokedAt)])
 
-// ─── Vessels (DESIGN.md §5) ───────────────────────────────────────────────────────────────────
+// ─── Vessels ───────────────────────────────────────────────────────────────────
 // Counters live on the vessel row and are incremented by the database in the firing's transaction.
 export const vessels = pgTable('vessels', {
   id: id(),
@@ -284,7 +284,7 @@ export const capturedMail = pgTable('captured_mail', {
   receivedAt: timestamp('received_at', { withTimezone: true }).notNull().defaultNow(),
 }, t => [index('captured_mail_received_idx').on(t.receivedAt)])
 
-// ─── Results (issue 5): one row per revision; a signed result changes only through a new revision ──
+// ─── Results: one row per revision; a signed result changes only through a new revision ──
 export const results = pgTable('results', {
   id: id(),
   runId: uuid('run_id').notNull().references(() => runs.id),

@@ -1,4 +1,4 @@
-// Standardisation of a vessel's energy equivalent (issue 5): series statistics, acceptance and the control charts.
+// Standardisation of a vessel's energy equivalent: series statistics, acceptance and the control charts.
 import { createHash } from 'node:crypto'
 import { and, asc, desc, eq } from 'drizzle-orm'
 import { z } from 'zod'

@@ -103,7 +103,7 @@ export interface HeatingValueChoice {
 
 /**
  * Heating value in this order: declared value → Channiwala & Parikh from a measured composition →
- * from a formula- or structure-derived composition → the conservative policy value (DESIGN §3).
+ * from a formula- or structure-derived composition → the conservative policy value.
  */
 export function chooseHeatingValue(input: HeatingValueInput, policy: LabPolicy): HeatingValueChoice {
   if (input.heatingValueJPerG !== undefined) {

@@ -197,7 +197,7 @@ export function proofChargeOf(vessel: { proofCharge?: ProofCharge }, policy: Lab
   }
 }
 
-/** Peak-pressure bound of the vessel's proof charge of benzoic acid, same model as the charge (DESIGN §3.4). */
+/** Peak-pressure bound of the vessel's proof charge of benzoic acid, same model as the charge. */
 export function proofChargeBound(vessel: { volumeMl: number; proofCharge?: ProofCharge }, policy: LabPolicy): PeakBound {
   const proof = proofChargeOf(vessel, policy)
   const per = combustionPerGram(asFiredFractions(compositionFromAtoms(BENZOIC_ACID_ATOMS).composition))

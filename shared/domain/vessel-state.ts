@@ -1,4 +1,4 @@
-// The one computation of a combustion vessel's service state for the whole app (DESIGN.md §5).
+// The one computation of a combustion vessel's service state for the whole app.
 // Intervals are common practice (manufacturers' service guidance), not a published standard: routine seal service every
 // 500 firings or six months, whichever comes first; requalification after 5,000 firings (ASTM E144 describes the tests).
 
@@ -20,7 +20,7 @@ export const DEFAULT_SERVICE_INTERVAL_FIRINGS = 500
 export const DEFAULT_SERVICE_INTERVAL_DAYS = 182
 /** Requalification interval in firings — common practice (manufacturers' service guidance). */
 export const DEFAULT_REQUALIFICATION_INTERVAL_FIRINGS = 5000
-/** "Service due" notice within this % of either interval — lab policy default (DESIGN.md §3, info finding). */
+/** "Service due" notice within this % of either interval — lab policy default (info finding). */
 export const DEFAULT_DUE_MARGIN_PCT = 10
 
 const DAY_MS = 86_400_000
@@ -77,7 +77,7 @@ function checkDate(value: Date, name: string): void {
   if (!(value instanceof Date) || Number.isNaN(value.getTime())) throw new RangeError(`${name} must be a valid date`)
 }
 
-/** State by precedence retired > locked-out > away > requalification-due > overdue (≥ 500 firings or ≥ 182 days) > awaiting-verification > service-due (≥ 90 % of either interval) > in-service — DESIGN.md §5; intervals common practice (manufacturers' service guidance). */
+/** State by precedence retired > locked-out > away > requalification-due > overdue (≥ 500 firings or ≥ 182 days) > awaiting-verification > service-due (≥ 90 % of either interval) > in-service; intervals common practice (manufacturers' service guidance). */
 export function computeVesselState(input: VesselStateInput): VesselServiceState {
   checkCounter(input.firingsSinceService, 'firingsSinceService')
   checkCounter(input.firingsSinceRequalification, 'firingsSinceRequalification')

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { as, baseURL } from '../support/api'
 
-// Malformed bodies for POST /api/assess: whatever arrives, the answer is JSON and never a 5xx (DESIGN §6: bad input is
+// Malformed bodies for POST /api/assess: whatever arrives, the answer is JSON and never a 5xx (bad input is
 // 400/422). The generator is seeded, so a failure repeats exactly; the seed is printed with each failure.
 // Prototype-pollution keys (__proto__, constructor) only come as raw text: the JSON reader refuses them with 400.
 

@@ -3,10 +3,10 @@ import { assess, type ChargeInput } from '#shared/domain/assessment'
 import type { LabPolicy } from '#shared/domain/policy'
 import { as, call } from '../support/api'
 
-// A typical standard vessel: ≈ 33 kJ rating, 40 atm ≈ 4.05 MPa maximum fill, 300 mL (REFERENCES.md "Vessels", secondary
+// A typical standard vessel: ≈ 33 kJ rating, 40 atm ≈ 4.05 MPa maximum fill, 300 mL (secondary
 // summaries of ASTM E144); the 1.5 g maximum charge is the demo lab's (data/demo-lab.ts), a fixture, not a check value.
 const VESSEL = { ratedEnergyJ: 33000, maxChargeMassG: 1.5, maxFillPressureMPa: 4.05, volumeMl: 300, class: 'standard' }
-// Benzoic acid weighed in air, 26,454 J/g (NIST SRM 39j certificate); nickel-chromium fuse 9.6 J/cm (from memory, DESIGN §2).
+// Benzoic acid weighed in air, 26,454 J/g (NIST SRM 39j certificate); nickel-chromium fuse 9.6 J/cm (from memory).
 const BA_J_PER_G = 26454
 const NICHROME_J_PER_CM = 9.6
 const benzoicAcid = (massG: number, extra: Record<string, unknown> = {}) => ({ role: 'sample', massG, heatingValueJPerG: BA_J_PER_G, smiles: 'OC(=O)c1ccccc1', ...extra })
@@ -32,7 +32,7 @@ const vesselNamed = (name: string) => {
   return v
 }
 
-describe('POST /api/assess — the public contract (DESIGN §6)', () => {
+describe('POST /api/assess — the public contract', () => {
   it('answers the §6 fields for 1.0 g benzoic acid with a 10 cm nickel-chromium fuse at 3.0 MPa gauge', async () => {
     const res = await post(charge({ components: [benzoicAcid(1.0, { formula: 'C7H6O2', smiles: 'OC(=O)c1ccccc1' }), fuse] }))
     expect(res.status).toBe(200)
@@ -45,13 +45,13 @@ describe('POST /api/assess — the public contract (DESIGN §6)', () => {
     const [sample, wire] = res.body.components
     expect(sample).toMatchObject({ heatingValueJPerG: BA_J_PER_G, heatingValueSource: 'declared' })
     expect(wire).toMatchObject({ heatingValueJPerG: null, heatingValueSource: 'fuse-wire' })
-    // C7H6O2 + 7.5 O2 → 7 CO2 + 3 H2O: 7.5 / 122.12 g/mol = 0.06141 mol/g (stoichiometry, IUPAC atomic weights; REFERENCES.md).
+    // C7H6O2 + 7.5 O2 → 7 CO2 + 3 H2O: 7.5 / 122.12 g/mol = 0.06141 mol/g (stoichiometry, IUPAC atomic weights).
     expect(sample.oxygenDemandMol).toBeCloseTo(0.06141, 4)
     // OB% = −1600·(2·7 + 6/2 − 2)/122.12 = −196.5 % (definition in Meyer, Köhler & Homburg, Explosives).
     expect(sample.oxygenBalancePct).toBeCloseTo((-1600 * (2 * 7 + 6 / 2 - 2)) / 122.12, 0)
-    // Excess is available ÷ demand by definition (DESIGN §3.3).
+    // Excess is available ÷ demand by definition.
     expect(res.body.oxygenExcess).toBeCloseTo(res.body.oxygenAvailableMol / res.body.oxygenDemandMol, 9)
-    // 1 g benzoic acid in 300 mL at 3.10 MPa abs: bound ≈ 26.5 MPa (REFERENCES.md, [C] NASA polynomials, McBride, Zehe &
+    // 1 g benzoic acid in 300 mL at 3.10 MPa abs: bound ≈ 26.5 MPa (computed from the NASA polynomials, McBride, Zehe &
     // Gordon 2002); the 1 mL of water, the charge volume and the fuse move it by well under 3 %.
     expect(Math.abs(res.body.peakPressureBoundMPa - 26.5) / 26.5).toBeLessThan(0.03)
     for (const f of res.body.findings) expect(Object.keys(f)).toEqual(expect.arrayContaining(['code', 'severity', 'message']))
@@ -87,7 +87,7 @@ describe('POST /api/assess — the public contract (DESIGN §6)', () => {
     const byFormula = await post(charge({ components: [{ role: 'sample', massG: 0.5, formula: 'C7H5N3O6' }, fuse] }))
     expect(byFormula.status).toBe(200)
     expect(byFormula.body.findings.map((f: { code: string }) => f.code)).toContain('structure-needed')
-    // TNT oxygen balance −74.0 % (Meyer, Köhler & Homburg, Explosives; REFERENCES.md).
+    // TNT oxygen balance −74.0 % (Meyer, Köhler & Homburg, Explosives).
     expect(byFormula.body.components[0].oxygenBalancePct).toBeCloseTo(-74.0, 0)
     const byStructure = await post(charge({ components: [{ role: 'sample', massG: 0.5, smiles: 'Cc1c(cc(cc1[N+](=O)[O-])[N+](=O)[O-])[N+](=O)[O-]' }, fuse] }))
     expect(byStructure.status).toBe(200)

@@ -1,4 +1,4 @@
-// `npm run backup` / `npm run restore` (issue 7): a backup of the test database and of an uploads folder, restored
+// `npm run backup` / `npm run restore`: a backup of the test database and of an uploads folder, restored
 // into a new, empty database and another folder, holds every table's rows and every file.
 import { spawnSync } from 'node:child_process'
 import { mkdtempSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs'

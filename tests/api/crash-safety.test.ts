@@ -9,7 +9,7 @@ import { startServer } from '../support/server-process'
 import type { ServerProcess } from '../support/server-process'
 import { readyRuns, registerVessel } from '../unit/bench/bench-api'
 
-// Crash safety (issue 7, DESIGN.md §5): the server is killed with SIGKILL (no shutdown, as a power cut would leave it)
+// Crash safety: the server is killed with SIGKILL (no shutdown, as a power cut would leave it)
 // in the middle of a burst of firings and of a large CSV import. After a restart every run is either fired with its
 // firing row and its counter increment, or still ready with neither; an import is all of its rows or none.
 

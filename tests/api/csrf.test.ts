@@ -1,4 +1,4 @@
-// Cross-site request protection (issue 7; OWASP ASVS 4.0.3 V4.2.2, OWASP CSRF Prevention Cheat Sheet: "verifying
+// Cross-site request protection (OWASP ASVS 4.0.3 V4.2.2, OWASP CSRF Prevention Cheat Sheet: "verifying
 // origin with standard headers" and Fetch Metadata). A browser sends Origin on every cross-origin POST/PUT/PATCH/DELETE
 // (Fetch Standard §3.1) and Sec-Fetch-Site on every request (W3C Fetch Metadata).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'

@@ -1,4 +1,4 @@
-// The database goes away for a few seconds (issue 7). A second server instance talks to the test database through a
+// The database goes away for a few seconds. A second server instance talks to the test database through a
 // TCP proxy written here, so the test can cut the line without owning the PostgreSQL cluster: while it is cut every
 // API request answers a clean 503, a write is never half-applied, and the server recovers by itself once it returns.
 import net from 'node:net'

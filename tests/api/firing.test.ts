@@ -4,7 +4,7 @@ import { as, call, unique } from '../support/api'
 import { auditRows, testDb } from '../support/db'
 import { benzoicAcidId, fire, plannedRuns, readyRuns, registerVessel, standardisedVessel, vessel } from '../unit/bench/bench-api'
 
-// POST /api/runs/:id/firing (issue 5; DESIGN.md §5: every recorded firing adds one to each counter in the same
+// POST /api/runs/:id/firing (every recorded firing adds one to each counter in the same
 // transaction; two firings at the same instant both count). Runs: 1.0000 g of a sample declared at 26 454 J/g
 // (benzoic acid, NIST SRM 39j, weighed in air) and 10 cm Ni-Cr fuse — 26.55 kJ in a 33 kJ vessel, clear.
 
@@ -124,7 +124,7 @@ describe('refusals (nothing is recorded or counted)', () => {
   })
 
   it('409 with the state\'s reason on an overdue vessel (the 501st firing of a 501-firing interval registered at 500)', async () => {
-    // Common practice service interval (DESIGN.md §2); here 501 so that the vessel registered at 500 is only "due".
+    // Common practice service interval; here 501 so that the vessel registered at 500 is only "due".
     const v = await registerVessel({ initialFiringsSinceService: 500, initialFiringsSinceRequalification: 500, initialFiringsTotal: 500, serviceIntervalFirings: 501 })
     expect(v.state).toBe('service-due')
     const [first, second] = await readyRuns(v.id, [{}, {}])
@@ -140,7 +140,7 @@ describe('refusals (nothing is recorded or counted)', () => {
   it('409 when the weighed mass creates a block: the run becomes blocked and the message says what changed', async () => {
     const v = await registerVessel()
     const [run] = await readyRuns(v.id, [{ massG: 1 }])
-    // 1.4500 g × 26 454 J/g + 96 J = 38.45 kJ, above the 33 kJ rating: a block (DESIGN.md §3).
+    // 1.4500 g × 26 454 J/g + 96 J = 38.45 kJ, above the 33 kJ rating: a block.
     const res = await fire(run!.id, { weighedMassG: 1.45 })
     expect(res.status).toBe(409)
     expect(res.body.message).toContain('sample mass 1.0000 g planned, 1.4500 g weighed')
@@ -155,7 +155,7 @@ describe('refusals (nothing is recorded or counted)', () => {
   it('409 when the weighed mass raises a new approval finding: the run goes back for a signature and supervisors are mailed', async () => {
     const v = await registerVessel()
     const [run] = await readyRuns(v.id, [{ massG: 1, sampleCode: unique('APPR') }])
-    // 1.1500 g × 26 454 J/g + 96 J = 30.52 kJ, above 90 % of 33 kJ (29.7 kJ): needs approval (policy, DESIGN.md §3).
+    // 1.1500 g × 26 454 J/g + 96 J = 30.52 kJ, above 90 % of 33 kJ (29.7 kJ): needs approval (policy).
     const res = await fire(run!.id, { weighedMassG: 1.15 })
     expect(res.status).toBe(409)
     expect(res.body.message).toMatch(/supervisor's signature/)
@@ -218,7 +218,7 @@ describe('a leak or an overpressure locks the vessel out', () => {
     // The check run needs an accepted energy equivalent to be evaluated: the vessel is standardised first.
     const { vessel: v } = await standardisedVessel(undefined, { initialCondition: 'awaiting-verification' })
     const runs = await plannedRuns(v.id, [{ kind: 'sample' }, { kind: 'check', materialId: await benzoicAcidId(), massG: 1 }])
-    // The plan itself already blocks the sample run (DESIGN.md §5: only standardisation/check runs until a check passes).
+    // The plan itself already blocks the sample run (only standardisation/check runs until a check passes).
     expect(runs.map(r => r.status)).toEqual(['blocked', 'ready'])
     expect((await fire(runs[0]!.id)).status).toBe(409)
     expect((await fire(runs[1]!.id)).status).toBe(201)

@@ -7,7 +7,7 @@ import { MATRIX } from '../support/roles-matrix'
 import { apiRoutes } from '../support/routes'
 import { benzoicAcidId, enterResult, fire, readyRuns, registerVessel } from '../unit/bench/bench-api'
 
-// Every mutating route (issue 7, DESIGN.md §6): thousands of malformed, oversized, wrongly typed and hostile requests,
+// Every mutating route: thousands of malformed, oversized, wrongly typed and hostile requests,
 // sent as a role allowed to call the route, at real records and at random ids → always a 4xx with a JSON message, never
 // a 5xx, and the domain tables exactly as they were (a checksum of each table before and after each route).
 // The generator is seeded, so a failure repeats exactly.

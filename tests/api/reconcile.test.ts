@@ -1,6 +1,6 @@
-// `npm run reconcile` against the test database (issue 7): firings recorded through the API, a routine service that
+// `npm run reconcile` against the test database: firings recorded through the API, a routine service that
 // resets the service counter, and then a counter that has been tampered with, which the command must name.
-// Counting rules: DESIGN.md §5 (each firing adds one to every counter; a routine service resets the service counter).
+// Counting rules (each firing adds one to every counter; a routine service resets the service counter).
 import { spawnSync } from 'node:child_process'
 import { randomUUID } from 'node:crypto'
 import { fileURLToPath } from 'node:url'
@@ -55,7 +55,7 @@ describe('npm run reconcile', () => {
           { position: 'valve', name: 'Valve seal', renewed: true, lot: 'VS-1' },
           { position: 'electrode', name: 'Electrode seal', renewed: true, lot: 'ES-1' },
         ],
-        // 12 N·m typical packing nut torque; 3.0 MPa usual fill (DESIGN.md §2, common practice).
+        // 12 N·m typical packing nut torque; 3.0 MPa usual fill (common practice).
         valveSeatRenewed: true, electrodeInsulators: 'inspected', packingNutTorqueNm: 12, electrodeResistanceOhm: 1.5,
         leakTest: { passed: true, pressureMPa: 3.0 }, sealingSurfaces: 'good', threads: 'good',
       },

@@ -7,7 +7,7 @@ import { auditRows, testDb } from '../support/db'
 import { serverEntry, serverEnv } from '../support/server-env'
 
 // Service-due at 90 % of the 500-firing interval, overdue at 500 firings or 182 days, requalification due at
-// 5,000 firings: lab policy defaults of DESIGN.md §2 (common practice, manufacturers' service guidance).
+// 5,000 firings: lab policy defaults (common practice, manufacturers' service guidance).
 const DAY = 86_400_000
 const root = fileURLToPath(new URL('../..', import.meta.url))
 

@@ -6,7 +6,7 @@ import { pdfText } from '../unit/bench/pdf-text'
 import { newClient, receive } from '../support/samples'
 import { synthesiseThermogram, thermogramCsv } from '../unit/bench/synthetic-thermogram'
 
-// Results through the API (issue 5). Check values and their sources:
+// Results through the API. Check values and their sources:
 //  • benzoic acid as an unknown must give back its certified 26 454 J/g (NIST SRM 39j certificate, weighed in air);
 //  • q_v,gr = (ε·θ − Σe)/m (ASTM D5865; ISO 1928); ε = (m·q + e)/θ (ASTM D240 §8);
 //  • net values: ISO 1928 / ISO 18125 formulas; H and O of C7H6O2 from IUPAC standard atomic weights;
@@ -262,7 +262,7 @@ describe('refusals of a result', () => {
 
 describe('a check run after service', () => {
   it('keeps the vessel waiting when it disagrees, and returns it to service in the same step when it agrees', async () => {
-    // Standardisation runs are allowed while a vessel awaits verification (DESIGN.md §5).
+    // Standardisation runs are allowed while a vessel awaits verification.
     const s = await standardisedVessel(EPSILONS, { initialCondition: 'awaiting-verification' })
     expect((await vessel(s.vessel.id)).state).toBe('awaiting-verification')
     const [bad, good] = await readyRuns(s.vessel.id, [{ kind: 'check', materialId: ba, massG: 1 }, { kind: 'check', materialId: ba, massG: 1 }])

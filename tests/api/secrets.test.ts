@@ -4,7 +4,7 @@ import { join } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { describe, expect, it } from 'vitest'
 
-// Secrets never reach the repository or the client bundle (issue 7; OWASP ASVS 14.3).
+// Secrets never reach the repository or the client bundle (OWASP ASVS 14.3).
 const root = fileURLToPath(new URL('../..', import.meta.url))
 const output = join(root, process.env.EMBERLINE_BUILD_DIR ?? '', '.output')
 

@@ -1,4 +1,4 @@
-// Security headers on every kind of answer (issue 7; OWASP ASVS 4.0.3 V14.4 "HTTP Security Headers" as the yardstick):
+// Security headers on every kind of answer (OWASP ASVS 4.0.3 V14.4 "HTTP Security Headers" as the yardstick):
 // pages, JSON, errors, downloads and static assets. CSP directives as defined by CSP Level 3 (W3C); HSTS by RFC 6797.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { as, baseURL, call, unique } from '../support/api'

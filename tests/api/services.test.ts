@@ -3,7 +3,7 @@ import { as, call, DEMO_PASSWORD, unique } from '../support/api'
 import { auditRows, testDb } from '../support/db'
 import { benzoicAcidMaterialId } from '../support/factories'
 
-// Intervals and margin are the lab policy defaults of DESIGN.md §2: routine service every 500 firings or 182 days
+// Intervals and margin are the lab policy defaults of routine service every 500 firings or 182 days
 // (six months), requalification after 5,000 firings, "due" within 10 % of an interval — common practice
 // (manufacturers' service guidance), no published standard. The electrode resistance limit of 5 Ω is the policy
 // default (common practice).
@@ -34,7 +34,7 @@ function routine(over: Record<string, unknown> = {}) {
     ],
     valveSeatRenewed: true,
     electrodeInsulators: 'inspected',
-    // 12 N·m: a typical packing nut torque (DESIGN.md §2, common practice).
+    // 12 N·m: a typical packing nut torque (common practice).
     packingNutTorqueNm: 12,
     electrodeResistanceOhm: 1.5,
     // 3.0 MPa: the usual oxygen fill (ISO 1928: 3.0 ± 0.2 MPa, from memory).
@@ -49,7 +49,7 @@ function routine(over: Record<string, unknown> = {}) {
 
 function requalification(over: Record<string, unknown> = {}) {
   const d = new Date(Date.now() - 2 * DAY).toISOString().slice(0, 10)
-  // 20.7 MPa (3,000 psig): hydrostatic test pressure in secondary summaries of ASTM E144 (REFERENCES.md).
+  // 20.7 MPa (3,000 psig): hydrostatic test pressure in secondary summaries of ASTM E144.
   return { kind: 'requalification', performedAt: new Date(Date.now() - HOUR).toISOString(), password: DEMO_PASSWORD, body: 'Test house (test)', certificateNumber: unique('CERT'), testPressureMPa: 20.7, testedFrom: d, testedTo: d, passed: true, ...over }
 }
 
@@ -65,7 +65,7 @@ async function serviceCount(vesselId: string) {
 describe('service state at each boundary, through the API', () => {
   it('449 firings since service is in service, 450 is due (the 10 % margin), 499 still due, 500 overdue', async () => {
     const at = async (n: number) => (await state((await vessel({ initialFiringsSinceService: n, initialFiringsSinceRequalification: n, initialFiringsTotal: n, lastServicedAt: new Date(Date.now() - DAY).toISOString() })).id)).state
-    // 450 = 90 % of 500: DESIGN.md §2 defaults (common practice).
+    // 450 = 90 % of 500: the policy defaults (common practice).
     expect(await at(449)).toBe('in-service')
     expect(await at(450)).toBe('service-due')
     expect(await at(499)).toBe('service-due')

@@ -3,7 +3,7 @@ import { as, call, signIn, unique } from '../support/api'
 import { auditRows } from '../support/db'
 import { BA_J_PER_G, FUSE_10CM_J, PASSWORD, benzoicAcidId, enterResult, fire, readyRuns, registerVessel, standardisedVessel } from '../unit/bench/bench-api'
 
-// Standardisation (issue 5). ε = (m_BA·q_BA + e_fuse + e_acid + e_aid)/θ (ASTM D240 §8; ISO 1928) with q_BA = 26 454 J/g
+// Standardisation. ε = (m_BA·q_BA + e_fuse + e_acid + e_aid)/θ (ASTM D240 §8; ISO 1928) with q_BA = 26 454 J/g
 // (NIST SRM 39j, weighed in air); series mean, s and RSD = 100·s/mean (JCGM 100:2008 §4.2); acceptance by the policy
 // defaults (ISO 1928: five runs, RSD ≤ 0.20 %, from memory); Shewhart limits ±2σ/±3σ and rule 1 (ISO 7870-2).
 

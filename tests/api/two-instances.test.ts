@@ -8,7 +8,7 @@ import { startServer } from '../support/server-process'
 import type { ServerProcess } from '../support/server-process'
 import { readyRuns, registerVessel } from '../unit/bench/bench-api'
 
-// Two app instances on one PostgreSQL (issue 7, DESIGN.md §5): firings sent through both at once count exactly once
+// Two app instances on one PostgreSQL: firings sent through both at once count exactly once
 // each, and a retry with the same Idempotency-Key on the OTHER instance gets the first answer and counts nothing —
 // so no instance may keep counters, keys or sessions in its own memory. Reminders-once is in reminders.test.ts.
 

@@ -27,9 +27,9 @@ describe('vessel register', () => {
     const admin = await as('admin')
     const res = await call('POST', '/api/vessels', { cookie: admin, body: vesselBody() })
     expect(res.status).toBe(201)
-    // Defaults: DESIGN.md §2, common practice (manufacturers' service guidance).
+    // Defaults: common practice (manufacturers' service guidance).
     expect(res.body).toMatchObject({ state: 'in-service', serviceIntervalFirings: 500, serviceIntervalDays: 182, requalificationIntervalFirings: 5000, firingsTotal: 0 })
-    // Proof charge default: 2 g benzoic acid at 40 atm (DESIGN.md §3.4); 40 atm = 4.053 MPa (NIST SP 811).
+    // Proof charge default: 2 g benzoic acid at 40 atm; 40 atm = 4.053 MPa (NIST SP 811).
     expect(res.body.proofCharge.massG).toBe(2)
     expect(res.body.proofCharge.fillPressureMPa).toBeCloseTo(4.053, 3)
     expect(await auditRows({ action: 'vessel.register', entityId: res.body.id })).toHaveLength(1)

@@ -1,4 +1,4 @@
-// Accessibility (issue 7): axe-core in Chromium on every page each role can reach — the header's links and the detail
+// Accessibility: axe-core in Chromium on every page each role can reach — the header's links and the detail
 // pages linked from them — with no serious or critical violation of WCAG 2.1 A/AA (axe-core's rule tags); forms that
 // work by keyboard alone with a visible focus (WCAG 2.1 SC 2.1.1 Keyboard, 2.4.7 Focus Visible). While walking, no
 // page may trip the Content-Security-Policy or throw.
@@ -124,7 +124,7 @@ describe('accessibility', () => {
     draftPlanId = draft.id
     expect((await addRun(draft.id, sampleRun(0.8))).status).toBe(201)
     const waiting = await newPlan(vessel.id)
-    // 1.2 g at 26,454 J/g = 31.7 kJ: above 90 % of a 33 kJ rating, so it needs a signature (DESIGN.md §3, policy).
+    // 1.2 g at 26,454 J/g = 31.7 kJ: above 90 % of a 33 kJ rating, so it needs a signature (policy).
     expect((await addRun(waiting.id, sampleRun(1.2))).status).toBe(201)
     expect((await call('POST', `/api/plans/${waiting.id}/submit`, { cookie: await as('analyst'), body: {} })).status).toBe(200)
   })

@@ -6,7 +6,7 @@ import { BA_J_PER_G, FUSE_10CM_J, PASSWORD, benzoicAcidId, enterResult, fire, re
 import { pdfText } from '../unit/bench/pdf-text'
 import { synthesiseThermogram, thermogramCsv } from '../unit/bench/synthetic-thermogram'
 
-// The bench journey (issue 5): the analyst records a firing and its thermogram and sees the result; the supervisor signs it
+// The bench journey: the analyst records a firing and its thermogram and sees the result; the supervisor signs it
 // off and issues the certificate, whose text is read back. Benzoic acid as the unknown must come back at its certified
 // 26 454 J/g (NIST SRM 39j, weighed in air) within what Regnault–Pfaundler recovers from the synthetic curve (0.02 %).
 describe('bench: firing, thermogram, result, sign-off, certificate', () => {

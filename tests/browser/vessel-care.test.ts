@@ -38,7 +38,7 @@ function sealPhoto(size = 48): Buffer {
 
 describe('vessel care in Chromium', () => {
   it('the technician completes a routine service with a photo; the vessel waits for its check run, which returns it to service', async () => {
-    // 500 firings since the last service: overdue (DESIGN.md §2 default, common practice).
+    // 500 firings since the last service: overdue (common practice).
     const name = unique('Care KR')
     const reg = await call('POST', '/api/vessels', {
       cookie: await as('admin'),

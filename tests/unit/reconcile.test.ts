@@ -1,4 +1,4 @@
-// The counting rules checked here are DESIGN.md §5 (every firing adds one to each counter; a routine service resets
+// The counting rules checked here (every firing adds one to each counter; a routine service resets
 // the service counter, a requalification both); the figures are small invented counts, checked by plain arithmetic.
 import { describe, expect, it } from 'vitest'
 import { formatReconciliation, reconcile, reconcileVessel, type VesselCounts } from '#shared/reconcile'

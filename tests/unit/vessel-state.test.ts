@@ -10,7 +10,7 @@ import {
 } from '../../shared/domain/vessel-state'
 
 // Intervals: routine service every 500 firings or six months (182 days), requalification after 5,000 firings —
-// common practice (manufacturers' service guidance), DESIGN.md §2. "Due" margin 10 % — lab policy default.
+// common practice (manufacturers' service guidance) "Due" margin 10 % — lab policy default.
 const DAY = 86_400_000
 const REGISTERED = new Date('2024-01-02T00:00:00Z')
 const SERVICED = new Date('2025-01-01T08:00:00Z')
@@ -165,7 +165,7 @@ describe('precedence: retired > locked-out > away > requalification-due > overdu
   })
 })
 
-describe('what each state blocks (DESIGN.md §3, §5)', () => {
+describe('what each state blocks', () => {
   it.each<[VesselStateInput, VesselState, boolean, boolean]>([
     [fired(10), 'in-service', false, false],
     [fired(460), 'service-due', false, false],

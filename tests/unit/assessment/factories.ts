@@ -2,7 +2,7 @@
 import type { ChargeInput, ResolvedComponent, VesselInput } from '#shared/domain/assessment'
 import { DEFAULT_POLICY, type LabPolicy } from '#shared/domain/policy'
 
-// Typical vessel: ≈ 33 kJ rating, 40 atm (4.053 MPa) maximum fill, 300 mL (REFERENCES.md "Vessels"; DESIGN §2).
+// Typical vessel: ≈ 33 kJ rating, 40 atm (4.053 MPa) maximum fill, 300 mL.
 // The 1.5 g maximum charge is a test fixture, not a check value.
 export function makeVessel(overrides: Partial<VesselInput> = {}): VesselInput {
   return { ratedEnergyJ: 33000, maxChargeMassG: 1.5, maxFillPressureMPa: 4.053, volumeMl: 300, class: 'standard', name: 'T-1', ...overrides }

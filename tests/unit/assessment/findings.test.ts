@@ -33,7 +33,7 @@ describe('finding codes', () => {
   })
 })
 
-describe('energy against the vessel rating (33 kJ typical, DESIGN §2)', () => {
+describe('energy against the vessel rating (33 kJ typical)', () => {
   // Limits: 33,000 J / 26,454 J/g = 1.24745 g (block); 0.9 × 33,000 / 26,454 = 1.12270 g (approval); NIST SRM 39j value.
   it('blocks just above the rating and not just below', () => {
     expect(codes(run([benzoicAcid(1.2474)]))).not.toContain('energy-over-rating')

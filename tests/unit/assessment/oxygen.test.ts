@@ -17,7 +17,7 @@ const T25 = 298.15
 describe('oxygen demand', () => {
   it('gives benzoic acid 7.5 mol O2 per mol = 0.06141 mol/g', async () => {
     const { composition } = await compositionFromFormula('C7H6O2')
-    // C7H6O2 + 7.5 O2 → 7 CO2 + 3 H2O; 7.5 / 122.123 = 0.06141 mol/g (stoichiometry, IUPAC atomic weights; DESIGN §2)
+    // C7H6O2 + 7.5 O2 → 7 CO2 + 3 H2O; 7.5 / 122.123 = 0.06141 mol/g (stoichiometry, IUPAC atomic weights)
     expect(oxygenDemandMolPerG(composition)).toBeCloseTo(0.06141, 5)
   })
 

@@ -5,8 +5,8 @@ import { DEFAULT_POLICY, labPolicySchema, POLICY_DESCRIPTIONS } from '#shared/do
 
 describe('lab policy', () => {
   it('holds the documented defaults', () => {
-    expect(DEFAULT_POLICY.serviceIntervalFirings).toBe(500) // DESIGN §2, common practice
-    expect(DEFAULT_POLICY.requalificationIntervalFirings).toBe(5000) // DESIGN §2, common practice
+    expect(DEFAULT_POLICY.serviceIntervalFirings).toBe(500) // common practice
+    expect(DEFAULT_POLICY.requalificationIntervalFirings).toBe(5000) // common practice
     expect([DEFAULT_POLICY.fillPressureWindowMinMPa, DEFAULT_POLICY.fillPressureWindowMaxMPa]).toEqual([2.8, 3.2]) // ISO 1928 3.0 ± 0.2 MPa (from memory)
     expect(DEFAULT_POLICY.proofChargeFillPressureMPa).toBeCloseTo(40 * 0.101325, 3) // 40 atm gauge (NIST SP 811 atmosphere)
     expect(DEFAULT_POLICY.repeatabilityJPerG).toBe(120) // ISO 1928 r (from memory)

@@ -7,7 +7,7 @@ import { as, call, unique } from '../../support/api'
 export const PASSWORD = 'ember-demo-2026'
 /** Benzoic acid weighed in air, NIST SRM 39j certificate (as in the reference material of the library). */
 export const BA_J_PER_G = 26_454
-/** 10 cm of nickel-chromium wire at the policy's 9.6 J/cm (from memory, DESIGN.md §3). */
+/** 10 cm of nickel-chromium wire at the policy's 9.6 J/cm (from memory). */
 export const FUSE_10CM_J = 96
 
 export async function registerVessel(over: Record<string, unknown> = {}) {

@@ -99,7 +99,7 @@ describe('net calorific value of benzoic acid against the NIST WebBook enthalpy 
 })
 
 describe('grossCalorificValue (ASTM D5865; ISO 1928)', () => {
-  const fuseJ = fuseCorrectionJ(10, 9.6) // 10 cm nickel-chromium wire × 9.6 J/cm (from memory, DESIGN.md §3)
+  const fuseJ = fuseCorrectionJ(10, 9.6) // 10 cm nickel-chromium wire × 9.6 J/cm (from memory)
 
   it('recovers the NIST SRM 39j value when benzoic acid is measured as an unknown', () => {
     const eps = energyEquivalent({ benzoicAcidMassG: 1.0003, benzoicAcidJPerG: SRM_39J_J_PER_G, temperatureRiseK: 2.5190, fuseJ })

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { energyEquivalent, seriesStatistics, type StandardisationRun } from '../../../shared/domain/results/energy-equivalent'
 
 const SRM_39J_J_PER_G = 26_434 // NIST SRM 39j certificate, mass in vacuum
-const NICHROME_J_PER_CM = 9.6 // nickel-chromium fuse wire (from memory, DESIGN.md §3)
+const NICHROME_J_PER_CM = 9.6 // nickel-chromium fuse wire (from memory)
 
 const run = (over: Partial<StandardisationRun> = {}): StandardisationRun => ({
   benzoicAcidMassG: 1.0012,
