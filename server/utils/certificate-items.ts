@@ -47,7 +47,7 @@ export function missingCertificateItems(content: CertificateContent, receipt: Ce
   if (!content.method.length) missing.push('the method')
   if (!content.rows.length) missing.push('results with their units')
   if (!content.rows.some(r => r.expandedUncertaintyJPerG !== null)) missing.push('the measurement uncertainty of the result')
-  if (content.determinations.length < 2) missing.push('the duplicate agreement (a second determination)')
+  // Duplicate agreement is checked before this list: a single determination is refused (409) unless the policy allows it.
   if (!content.signers.length) missing.push('the authorised signatory of the results')
   return missing
 }

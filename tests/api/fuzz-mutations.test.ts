@@ -43,6 +43,7 @@ const POISON: Record<string, string> = {
   'POST /api/account/password': 'newPassword',
   'PATCH /api/settings': 'reason',
   'POST /api/assess': 'components',
+  'POST /api/aid-values': 'determinationsJPerG',
   'POST /api/admin/users': 'email',
   'PATCH /api/admin/users/[id]': 'name',
   'POST /api/admin/users/[id]/password': 'password',
@@ -73,7 +74,7 @@ const POISON: Record<string, string> = {
 }
 
 const DOMAIN_TABLES = ['users', 'vessels', 'materials', 'plans', 'runs', 'signatures', 'firings', 'services', 'results', 'energy_equivalents',
-  'reports', 'lab_settings', 'attachments', 'clients', 'samples', 'day_plans']
+  'reports', 'lab_settings', 'attachments', 'clients', 'samples', 'day_plans', 'aid_values']
 // A refused sign-in is itself recorded (login_attempts and its audit row: the lockout and the trail depend on it),
 // so these are compared for every route but the login route. captured_mail is left out: the fake mail server fills
 // it from mail queued by earlier test files whenever the outbox worker gets to it; the outbox itself is compared.

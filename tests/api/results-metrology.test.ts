@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { as, baseURL, call, unique } from '../support/api'
 import { auditRows } from '../support/db'
+import { newClient, receive } from '../support/samples'
 import { BA_J_PER_G, FUSE_10CM_J, PASSWORD, benzoicAcidId, enterResult, fire, readyRuns, standardisedVessel } from '../unit/bench/bench-api'
 import { pdfText } from '../unit/bench/pdf-text'
 
@@ -103,7 +104,8 @@ describe('aid values: typical until the lab determines them', () => {
 
 describe('certificates need agreeing duplicates unless the policy allows a single determination', () => {
   it('refuses a single determination (409), then says so prominently once the policy allows it; provisional values are flagged', async () => {
-    const code = unique('ONE')
+    // A received sample, so that the certificate has its client and receipt items.
+    const code = (await receive((await newClient()).id)).labCode
     const r = await sample(code, { temperatureRiseK: thetaFor(0.8, BA_J_PER_G), aidHeatingValueJPerG: 46_000 }, { aidMassG: 0.05 })
     expect(r.values.provisional.length).toBe(1)
     const supervisor = await as('supervisor')

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { as, call, DEMO_PASSWORD, signIn, unique } from '../support/api'
 import { testDb } from '../support/db'
 import { addRun, material, newPlan, newVessel } from '../support/factories'
-import { fire } from '../unit/bench/bench-api'
+import { fire, standardisedVessel } from '../unit/bench/bench-api'
 
 // Signatures cover what is fired, signed by someone independent of the charge. Every attempt below goes through the
 // routes a browser uses. Heat releases: sample × declared heating value + 10 cm Ni-Cr fuse at 9.6 J/cm (policy,
@@ -146,7 +146,8 @@ describe('standardisation and check runs burn the reference standard', () => {
   it('refuses a check run burning coal, on create, on edit and in the CSV import', async () => {
     const coal = await material('Bituminous coal (typical)')
     const ba = await material('Benzoic acid, calorimetric standard')
-    const v = await newVessel()
+    // A vessel with an accepted energy equivalent: a check run is possible on it at all.
+    const { vessel: v } = await standardisedVessel()
     const plan = await newPlan(v.id)
     const coalCheck = { sampleCode: unique('CHK'), kind: 'check', components: [{ role: 'sample', materialId: coal.id, massG: 0.8 }, fuse] }
     const created = await addRun(plan.id, coalCheck)
