@@ -20,7 +20,7 @@ export const PAGE_ACCESS: Readonly<Record<string, Who>> = {
   '/materials': 'all',
   '/audit': ['supervisor', 'admin'],
   // Supervisors own the lab policy without being admins; admins administer it.
-  '/admin/policy': ['supervisor', 'admin'],
+  '/admin/policy': ['admin', 'supervisor'],
   '/admin/users': ['admin'],
   '/admin/mail': ['admin'],
   '/account': 'all',

@@ -28,6 +28,9 @@ describe('the day at the bench in Chromium', () => {
     await sample.getByLabel('Mass (g)').fill('2')
     await sample.getByLabel('Unit of the heating value').selectOption('J/g')
     await sample.getByLabel('Heating value, if known').fill('35000')
+    // Its identity by structure (a hydrocarbon, naphthalene), so that the screen clears it and the advice is about amounts.
+    await sample.getByRole('radio', { name: 'structure' }).check()
+    await sample.getByLabel('Structure as SMILES').fill('c1ccc2ccccc2c1')
     const wire = page.getByTestId('component-fuse-1')
     await wire.getByLabel('Fuse type').selectOption('nichrome')
     await wire.getByLabel('Burnt length (cm)').fill('10')
@@ -56,7 +59,8 @@ describe('the day at the bench in Chromium', () => {
     await signInAs(page, 'analyst@emberline.test')
     await newPlan(page, `Advice ${Date.now().toString(36)}`)
     await page.getByTestId('entry-code').fill('COAL-2')
-    await page.getByTestId('entry-material').fill('Client coal, lot 7')
+    // A coal from the library (its classification recorded there), planned at 35,000 J/g.
+    await page.getByTestId('entry-material').fill('Client coal KRC-2611 (bituminous blend)')
     await page.getByTestId('entry-hv').fill('35000')
     await page.getByTestId('entry-mass').fill('2')
     await page.getByTestId('entry-fill').fill('3.1')

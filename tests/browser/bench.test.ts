@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest'
 import { as, call, unique } from '../support/api'
 import { SCREENSHOT_DIR, openPage, shot, signInAs } from '../support/browser'
 import { BA_J_PER_G, FUSE_10CM_J, PASSWORD, benzoicAcidId, enterResult, fire, readyRuns, registerVessel, standardisedVessel } from '../unit/bench/bench-api'
+import { newClient, receive } from '../support/samples'
 import { pdfText } from '../unit/bench/pdf-text'
 import { synthesiseThermogram, thermogramCsv } from '../unit/bench/synthetic-thermogram'
 
@@ -12,7 +13,8 @@ import { synthesiseThermogram, thermogramCsv } from '../unit/bench/synthetic-the
 describe('bench: firing, thermogram, result, sign-off, certificate', () => {
   it('runs the whole journey in the browser', async () => {
     const { vessel } = await standardisedVessel([10_000, 10_005, 9_995, 10_002, 9_998]) // accepted ε = 10 000.0 J/K
-    const code = unique('BENCH')
+    // A sample received from a client: the certificate names the client and the item as received.
+    const code = (await receive((await newClient()).id)).labCode
     await readyRuns(vessel.id, [{ sampleCode: code, materialId: await benzoicAcidId(), massG: 0.8 }])
     const theta = (0.8 * BA_J_PER_G + FUSE_10CM_J) / 10_000 // θ = (m·q + e_fuse)/ε, ASTM D5865 rearranged: 2.1259 K
 
