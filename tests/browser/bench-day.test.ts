@@ -41,7 +41,8 @@ describe('the day at the bench in Chromium', () => {
 
     // One answer first: the mass and the fill together; the findings keep their own limits as detail.
     const advice = page.getByTestId('advice')
-    await expect(advice.textContent()).resolves.toContain('Use 0.74 g of sample, fill to 3.00 MPa gauge: the charge is then clear.')
+    // The structure is read in the browser first (the chemistry library loads on first use): wait for the answer.
+    await expect.poll(() => advice.textContent(), { timeout: 20_000 }).toContain('Use 0.74 g of sample, fill to 3.00 MPa gauge: the charge is then clear.')
     await expect(page.getByTestId('apply-advice').textContent()).resolves.toContain('Use 0.74 g · 3.00 MPa gauge')
     await shot(page, 'advice-before')
     await page.getByTestId('apply-advice').click()
