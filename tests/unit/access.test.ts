@@ -22,7 +22,7 @@ describe('access map', () => {
   })
 
   it('lets the longest prefix decide', () => {
-    expect(pageAccess('/admin/policy')).toEqual(['supervisor', 'admin'])
+    expect(pageAccess('/admin/policy')).toEqual(['admin', 'supervisor'])
     expect(pageAccess('/admin/users')).toEqual(['admin'])
     expect(pageAccess('/plans/42/print')).toEqual(['analyst', 'supervisor'])
     expect(pageAccess('/')).toBe('all')
