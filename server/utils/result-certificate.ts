@@ -50,7 +50,7 @@ export async function certificateContent(db: Db | Tx, sampleCode: string, issuer
   add('Gross calorific value at constant volume', dup.reported.grossJPerG, uBy?.gross)
   add('Net calorific value at constant pressure', dup.reported.netConstantPressureJPerG, uBy?.netConstantPressure ?? {})
   add('Net calorific value at constant volume', dup.reported.netConstantVolumeJPerG, uBy?.netConstantVolume ?? {})
-  if (dup.reported.mineralMatterFreeDryJPerG !== null) certRows.push({ quantity: 'Gross calorific value, mineral-matter-free (Parr, ASTM D388)', basis: 'dry, mineral-matter-free', valueJPerG: dup.reported.mineralMatterFreeDryJPerG, expandedUncertaintyJPerG: null })
+  if (dup.reported.mineralMatterFreeDryJPerG !== null) certRows.push({ quantity: 'Gross calorific value, mineral-matter-free (ASTM D388)', basis: 'dry, mineral-matter-free', valueJPerG: dup.reported.mineralMatterFreeDryJPerG, expandedUncertaintyJPerG: null })
   const a = first.analysis
   const analysis = [
     a.moistureAdPct !== null && { label: 'moisture of the analysis sample', value: `${a.moistureAdPct} %` },

@@ -1,9 +1,9 @@
-// A determination's gross value on every basis the analysis allows, the net values, Parr's mineral-matter-free values,
+// A determination's gross value on every basis the analysis allows, the net values, mineral-matter-free values (ASTM D388),
 // and the expanded uncertainty of each, carried from the budget of the value as determined.
 import { convertBasis } from './bases'
 import type { Basis, BasisConditions } from './bases'
 import { netCalorificValueConstantPressure, netCalorificValueConstantVolume } from './calorific-value'
-import { parrMineralMatterFreeValue, parrMineralMatterPct } from './mineral-matter'
+import { mineralMatterFreeValue, mineralMatterPct } from './mineral-matter'
 import type { ByBasis, MineralMatterFree, ResultNote, ResultValues } from './result-types'
 import { propagate } from './uncertainty'
 
@@ -24,7 +24,7 @@ const moistureOf = (b: Basis, x: X) => (b === 'dry' ? 0 : b === 'air-dried' ? at
 const netVOn = (b: Basis) => (x: X) => netCalorificValueConstantVolume({ grossDryJPerG: grossOn('dry')(x), hydrogenDryPct: at(x, 4), moisturePct: moistureOf(b, x) })
 const netPOn = (b: Basis) => (x: X) => netCalorificValueConstantPressure({ grossDryJPerG: grossOn('dry')(x), hydrogenDryPct: at(x, 4), oxygenDryPct: at(x, 5), nitrogenDryPct: at(x, 6), moisturePct: moistureOf(b, x) })
 const sulfurDry = (x: X) => (at(x, 7) * 100) / (100 - at(x, 1))
-const mmfDry = (x: X) => parrMineralMatterFreeValue(grossOn('dry')(x), at(x, 3), sulfurDry(x))
+const mmfDry = (x: X) => mineralMatterFreeValue(grossOn('dry')(x), at(x, 3), sulfurDry(x))
 
 /** Gross on every basis (ASTM D3180 / ISO 1170), net values (ISO 1928 / ISO 18125), mmf (ASTM D388), each with U (k = 2). */
 export function basesAndNet(grossAd: number, ucGrossAd: number, a: ResultValues['analysis'], sulfurPctAd: number, missing: string[], notes: ResultNote[]) {
@@ -64,15 +64,15 @@ export function basesAndNet(grossAd: number, ucGrossAd: number, a: ResultValues[
   if (a.ashDryPct !== null) {
     const p = propagate(mmfDry, x, ux)
     const sD = sulfurDry(x)
-    const mm = parrMineralMatterPct(a.ashDryPct, sD)
+    const mm = mineralMatterPct(a.ashDryPct, sD)
     const moist = a.moistureArPct !== null
-      ? parrMineralMatterFreeValue(grossJPerG['as-received']!, (a.ashDryPct * (100 - a.moistureArPct)) / 100, (sD * (100 - a.moistureArPct)) / 100)
+      ? mineralMatterFreeValue(grossJPerG['as-received']!, (a.ashDryPct * (100 - a.moistureArPct)) / 100, (sD * (100 - a.moistureArPct)) / 100)
       : null
     mmf = { mineralMatterDryPct: mm, dryJPerG: p.value, dryExpandedUncertaintyJPerG: p.expandedUncertainty, moistJPerG: moist }
     notes.push({
-      figure: 'Mineral-matter-free basis (Parr)',
+      figure: 'Mineral-matter-free basis (ASTM D388)',
       formula: 'MM = 1.08·A + 0.55·S; Q_mmf = (Q − 116.3·S)/(100 − MM)·100 (116.3 J/g = 50 Btu/lb per % S); moist: as-received moisture taken as the inherent moisture',
-      source: 'ASTM D388 (Parr formulas)',
+      source: 'ASTM D388 mineral-matter formulas',
       inputs: [{ label: 'MM (dry)', value: round(mm, 2), unit: '%' }, { label: 'S (dry)', value: round(sD, 3), unit: '%' }],
     })
   }

@@ -81,7 +81,7 @@ export interface Corrections {
 }
 
 export interface MineralMatterFree {
-  /** Parr's mineral matter, dry basis, mass-%. */
+  /** Mineral matter (ASTM D388 formula), dry basis, mass-%. */
   mineralMatterDryPct: number
   dryJPerG: number
   dryExpandedUncertaintyJPerG: number | null

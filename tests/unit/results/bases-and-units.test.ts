@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import {
-  aidSeries, buoyancyFactor, DEFAULT_BUOYANCY_DENSITIES, parrMineralMatterFreeValue, parrMineralMatterPct, pooledStandardDeviation,
+  aidSeries, buoyancyFactor, DEFAULT_BUOYANCY_DENSITIES, mineralMatterFreeValue, mineralMatterPct, pooledStandardDeviation,
   standardDeviationFromLimit, valuePerMassWeighedInAir,
 } from '../../../shared/domain/results'
 import { formatSpecificEnergy, fromJPerG, toJPerG } from '../../../shared/domain/specific-energy'
@@ -16,21 +16,21 @@ describe('thermochemical calorie beside the international-table calorie', () => 
   })
 })
 
-describe('Parr mineral-matter-free basis (ASTM D388, from memory)', () => {
+describe('mineral-matter-free basis (ASTM D388, from memory)', () => {
   it('MM = 1.08·A + 0.55·S', () => {
-    expect(parrMineralMatterPct(10, 2)).toBeCloseTo(11.9, 12)
+    expect(mineralMatterPct(10, 2)).toBeCloseTo(11.9, 12)
   })
 
   it('agrees with the formula in Btu/lb: (12 000 − 50·2)/(100 − 11.9)·100 = 13 507.4 Btu/lb', () => {
     // The ASTM D388 formula is written in Btu/lb with 50 Btu/lb per % S; in J/g the same value (1 Btu/lb = 2.326 J/g, NIST SP 811).
     const btu = ((12_000 - 50 * 2) / (100 - 11.9)) * 100
     expect(btu).toBeCloseTo(13_507.38, 2)
-    expect(parrMineralMatterFreeValue(12_000 * 2.326, 10, 2)).toBeCloseTo(btu * 2.326, 6)
+    expect(mineralMatterFreeValue(12_000 * 2.326, 10, 2)).toBeCloseTo(btu * 2.326, 6)
   })
 
   it('refuses impossible figures', () => {
-    expect(() => parrMineralMatterPct(-1, 0)).toThrow(RangeError)
-    expect(() => parrMineralMatterFreeValue(20_000, 95, 0)).toThrow(RangeError)
+    expect(() => mineralMatterPct(-1, 0)).toThrow(RangeError)
+    expect(() => mineralMatterFreeValue(20_000, 95, 0)).toThrow(RangeError)
   })
 })
 

@@ -196,7 +196,7 @@ describe('buoyancy of the standard', () => {
 describe('inputs at zero', () => {
   it('a sulfur-free, moisture-free sample with ash still gets its mineral-matter-free value and U (no step below 0 %)', () => {
     const v = computeResultValues(inputs({ moistureAdPct: 0, ashDryPct: 5, sulfurPct: 0 }), ctx())
-    // Parr (ASTM D388): MM = 1.08 × 5 = 5.4 %; Q_mmf = Q_d·100/94.6.
+    // ASTM D388 mineral-matter formula: MM = 1.08 × 5 = 5.4 %; Q_mmf = Q_d·100/94.6.
     expect(v.mineralMatterFree!.mineralMatterDryPct).toBeCloseTo(5.4, 12)
     expect(v.mineralMatterFree!.dryJPerG).toBeCloseTo(v.grossJPerG.dry! * 100 / 94.6, 6)
     expect(v.mineralMatterFree!.dryExpandedUncertaintyJPerG).toBeGreaterThan(0)
