@@ -87,6 +87,7 @@ export const API_ACCESS: Readonly<Record<string, Who>> = {
   'POST /api/runs/[id]/withdraw': ['analyst'],
   'POST /api/runs/[id]/firing': ['analyst'],
   'POST /api/runs/[id]/result': ['analyst'],
+  'GET /api/runs/[id]/result-context': ['analyst', 'supervisor'],
   'GET /api/results': ['analyst', 'supervisor'],
   'GET /api/results/bench': ['analyst', 'supervisor'],
   'GET /api/results/export.csv': ['analyst', 'supervisor'],

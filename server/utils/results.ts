@@ -6,7 +6,8 @@ import type { SQL } from 'drizzle-orm'
 import { z } from 'zod'
 import { resolveComponents } from '../../shared/domain/assessment'
 import type { LabPolicy } from '../../shared/domain/policy'
-import { computeResultValues, ResultInputError, repeatabilityTerm } from '../../shared/domain/results'
+import { computeResultValues, ResultInputError, resultContextFrom } from '../../shared/domain/results'
+import type { ResultContextParts } from '../../shared/domain/results'
 import type * as domain from '../../shared/domain/results'
 import * as inputSchemas from '../../shared/schemas/results'
 import type { RunComponent } from '../../shared/schemas/plans'
@@ -57,8 +58,12 @@ export function computeResult(inputs: ResultInputs, ctx: ResultContext): ResultV
   }
 }
 
-/** Loads what a result of this run needs: the firing, the weighed charge resolved, the active ε, the aid's value and s_r. */
-export async function resultContext(db: Db | Tx, run: RunRow, policy: LabPolicy, energyEquivalentId?: string | null) {
+/**
+ * Loads what a result of this run needs: the firing, the weighed charge resolved, the ε in force, the aid's value and
+ * the lab's duplicate scatter. A run with a result keeps the ε of its first revision; a first result takes the vessel's
+ * active ε. The parts are what the result form previews with (GET /api/runs/[id]/result-context).
+ */
+export async function resultContextParts(db: Db | Tx, run: RunRow, energyEquivalentId?: string | null) {
   const [firing] = await db.select().from(schema.firings).where(eq(schema.firings.runId, run.id))
   if (!firing) throw createError({ statusCode: 409, message: `Run ${run.sampleCode} has not been fired yet: record the firing first.` })
   if (firing.outcome !== 'complete') {
@@ -73,11 +78,7 @@ export async function resultContext(db: Db | Tx, run: RunRow, policy: LabPolicy,
   catch {
     components = charge
   }
-  const aid = await aidValueFor(db, weighed.find(c => c.role === 'aid')?.materialId ?? null)
-  const cotton = await cottonValue(db)
-  const repeatability = repeatabilityTerm(policy.repeatabilityJPerG, await labRepeatability(db), policy.ownRepeatabilityMinDof)
   const kind = run.kind as ResultKind
-  // A revision keeps the ε that was in force for its firing; a first result takes the vessel's active ε.
   const energy = kind === 'standardisation' ? null : energyEquivalentId ? await energyEquivalentById(db, energyEquivalentId) : await activeEnergyEquivalent(db, run.vesselId)
   if (kind !== 'standardisation' && !energy) {
     const [v] = await db.select({ name: schema.vessels.name }).from(schema.vessels).where(eq(schema.vessels.id, run.vesselId))
@@ -87,8 +88,20 @@ export async function resultContext(db: Db | Tx, run: RunRow, policy: LabPolicy,
       data: { reason: 'no-energy-equivalent' },
     })
   }
-  const ctx: ResultContext = { kind, weighedMassG: firing.weighedMassG, components, energyEquivalent: energy, aid, cotton, repeatability, policy }
-  return { firing, ctx }
+  const parts: ResultContextParts = {
+    kind, weighedMassG: firing.weighedMassG, components,
+    energyEquivalent: energy ? { id: energy.id, valueJPerK: energy.valueJPerK, standardDeviationJPerK: energy.standardDeviationJPerK, runs: energy.runs, acceptedAt: energy.acceptedAt } : null,
+    aid: await aidValueFor(db, weighed.find(c => c.role === 'aid')?.materialId ?? null),
+    cotton: await cottonValue(db),
+    labRepeatability: await labRepeatability(db),
+  }
+  return { firing, parts }
+}
+
+/** The firing and the whole context of a result of this run under the policy in force. */
+export async function resultContext(db: Db | Tx, run: RunRow, policy: LabPolicy, energyEquivalentId?: string | null) {
+  const { firing, parts } = await resultContextParts(db, run, energyEquivalentId)
+  return { firing, ctx: resultContextFrom(parts, policy) }
 }
 
 export async function activeEnergyEquivalent(db: Db | Tx, vesselId: string): Promise<EnergyEquivalentRow | null> {

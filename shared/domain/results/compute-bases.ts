@@ -25,6 +25,9 @@ const netVOn = (b: Basis) => (x: X) => netCalorificValueConstantVolume({ grossDr
 const netPOn = (b: Basis) => (x: X) => netCalorificValueConstantPressure({ grossDryJPerG: grossOn('dry')(x), hydrogenDryPct: at(x, 4), oxygenDryPct: at(x, 5), nitrogenDryPct: at(x, 6), moisturePct: moistureOf(b, x) })
 const sulfurDry = (x: X) => (at(x, 7) * 100) / (100 - at(x, 1))
 const mmfDry = (x: X) => mineralMatterFreeValue(grossOn('dry')(x), at(x, 3), sulfurDry(x))
+// Moist basis: ash and sulfur brought to the as-received basis, its total moisture taken as the inherent moisture.
+const asReceived = (dryPct: number, x: X) => (dryPct * (100 - at(x, 2))) / 100
+const mmfMoist = (x: X) => mineralMatterFreeValue(grossOn('as-received')(x), asReceived(at(x, 3), x), asReceived(sulfurDry(x), x))
 
 /** Gross on every basis (ASTM D3180 / ISO 1170), net values (ISO 1928 / ISO 18125), mmf (ASTM D388), each with U (k = 2). */
 export function basesAndNet(grossAd: number, ucGrossAd: number, a: ResultValues['analysis'], sulfurPctAd: number, missing: string[], notes: ResultNote[]) {
@@ -65,10 +68,8 @@ export function basesAndNet(grossAd: number, ucGrossAd: number, a: ResultValues[
     const p = propagate(mmfDry, x, ux)
     const sD = sulfurDry(x)
     const mm = mineralMatterPct(a.ashDryPct, sD)
-    const moist = a.moistureArPct !== null
-      ? mineralMatterFreeValue(grossJPerG['as-received']!, (a.ashDryPct * (100 - a.moistureArPct)) / 100, (sD * (100 - a.moistureArPct)) / 100)
-      : null
-    mmf = { mineralMatterDryPct: mm, dryJPerG: p.value, dryExpandedUncertaintyJPerG: p.expandedUncertainty, moistJPerG: moist }
+    const moist = a.moistureArPct !== null ? propagate(mmfMoist, x, ux) : null
+    mmf = { mineralMatterDryPct: mm, dryJPerG: p.value, dryExpandedUncertaintyJPerG: p.expandedUncertainty, moistJPerG: moist?.value ?? null, moistExpandedUncertaintyJPerG: moist?.expandedUncertainty ?? null }
     notes.push({
       figure: 'Mineral-matter-free basis (ASTM D388)',
       formula: 'MM = 1.08·A + 0.55·S; Q_mmf = (Q − 116.3·S)/(100 − MM)·100 (116.3 J/g = 50 Btu/lb per % S); moist: as-received moisture taken as the inherent moisture',

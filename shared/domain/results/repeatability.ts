@@ -32,10 +32,18 @@ export interface RepeatabilityTerm {
   basis: string
 }
 
-/** The lab's pooled s_r once it rests on at least minDegreesOfFreedom, else r/2.8 of the method (ISO 5725-6). */
+/**
+ * The lab's pooled s_r once it rests on at least minDegreesOfFreedom and is not below the method's, else r/2.8 of the
+ * method (ISO 5725-6). A lab scattering less than the method allows does not report a single determination with a U
+ * below 2·r/2.8: the method's repeatability is the floor (the lab's own decision, kept conservative).
+ */
 export function repeatabilityTerm(limitJPerG: number, own: { standardDeviation: number, degreesOfFreedom: number } | null, minDegreesOfFreedom: number): RepeatabilityTerm {
-  if (own && own.degreesOfFreedom >= minDegreesOfFreedom) {
+  const method = standardDeviationFromLimit(limitJPerG)
+  if (own && own.degreesOfFreedom >= minDegreesOfFreedom && own.standardDeviation >= method) {
     return { standardDeviationJPerG: own.standardDeviation, source: 'lab-duplicates', degreesOfFreedom: own.degreesOfFreedom, basis: `the lab's own duplicates (${own.degreesOfFreedom} degrees of freedom)` }
   }
-  return { standardDeviationJPerG: standardDeviationFromLimit(limitJPerG), source: 'method-limit', degreesOfFreedom: null, basis: `r/2.8 with r = ${limitJPerG} J/g (ISO 5725-6)` }
+  const ownWords = own && own.degreesOfFreedom >= minDegreesOfFreedom
+    ? `; the lab's own duplicates (s = ${Math.round(own.standardDeviation * 10) / 10} J/g) do not lower it`
+    : ''
+  return { standardDeviationJPerG: method, source: 'method-limit', degreesOfFreedom: null, basis: `r/2.8 with r = ${limitJPerG} J/g (ISO 5725-6)${ownWords}` }
 }

@@ -87,6 +87,8 @@ export interface MineralMatterFree {
   dryExpandedUncertaintyJPerG: number | null
   /** On the as-received basis with the total moisture taken as the inherent moisture; null without it. */
   moistJPerG: number | null
+  /** Its expanded uncertainty (k = 2); absent on results stored before it was computed. */
+  moistExpandedUncertaintyJPerG?: number | null
 }
 
 export interface ResultValues {

@@ -3,7 +3,7 @@ import { DEFAULT_POLICY, type LabPolicy } from '../../../shared/domain/policy'
 import {
   computeResultValues, DEFAULT_U_CORRECTION_REL, DEFAULT_U_MASS_G, DEFAULT_U_THETA_K, NITRIC_ACID_FORMATION_J_PER_MOL, repeatabilityTerm,
   SULFUR_CORRECTION_ISO_J_PER_PCT_G, SULFUR_CORRECTION_J_PER_PCT_G, typicalRangeValue,
-  type ResultContext,
+  resultContextFrom, type ResultContext, type ResultContextParts,
 } from '../../../shared/domain/results'
 import type { ResultInputs } from '../../../shared/schemas/results'
 
@@ -118,19 +118,28 @@ describe('the uncertainty budget (JCGM 100:2008)', () => {
     expect(2 * 120 / 2.8).toBeCloseTo(85.71, 2)
   })
 
-  it('property: U is never below the repeatability term, for any inputs and either source of s_r', () => {
+  it('property: a single determination never reports U below 2·r/2.8 of the method, whatever the lab\'s own scatter (ISO 5725-6 s_r = r/2.8)', () => {
+    // ISO 1928 r = 120 J/g → s_r = 42.86 J/g → U(k = 2) ≥ 85.7 J/g; other r drawn at random around it.
     const rnd = seeded(5725)
-    for (let i = 0; i < 200; i++) {
-      const own = rnd() < 0.5 ? { standardDeviation: 10 + rnd() * 60, degreesOfFreedom: 5 + Math.floor(rnd() * 40) } : null
-      const rep = repeatabilityTerm(60 + rnd() * 200, own, 10)
-      const v = computeResultValues(inputs({ temperatureRiseK: 1 + rnd() * 2, sampleMassG: 0.4 + rnd(), sulfurPct: rnd() * 4 }), ctx({ repeatability: rep }))
-      expect(v.uncertainty!.expandedUncertaintyJPerG).toBeGreaterThanOrEqual(v.uncertainty!.coverageFactor * rep.standardDeviationJPerG)
+    for (let i = 0; i < 300; i++) {
+      const r = 60 + rnd() * 200
+      const own = rnd() < 0.7 ? { standardDeviation: 5 + rnd() * 120, degreesOfFreedom: Math.floor(rnd() * 40) } : null
+      const parts: ResultContextParts = { kind: 'sample', weighedMassG: 1, components: [{ role: 'sample', massG: 1 }], energyEquivalent: EE, aid: null, cotton: null, labRepeatability: own }
+      const c = resultContextFrom(parts, { ...DEFAULT_POLICY, repeatabilityJPerG: r })
+      const v = computeResultValues(inputs({ temperatureRiseK: 1 + rnd() * 2, sampleMassG: 0.4 + rnd(), sulfurPct: rnd() * 4 }), c)
+      expect(v.uncertainty!.expandedUncertaintyJPerG).toBeGreaterThanOrEqual(2 * (r / 2.8))
+      expect(v.repeatabilityJPerG).toBeGreaterThanOrEqual(r / 2.8)
     }
   })
 
-  it('takes the lab\'s own pooled s_r once it rests on enough degrees of freedom, else r/2.8', () => {
-    expect(repeatabilityTerm(120, { standardDeviation: 30, degreesOfFreedom: 12 }, 10).standardDeviationJPerG).toBe(30)
-    expect(repeatabilityTerm(120, { standardDeviation: 30, degreesOfFreedom: 4 }, 10).standardDeviationJPerG).toBeCloseTo(42.857, 3)
+  it('takes the lab\'s own pooled s_r once it rests on enough degrees of freedom and is not below r/2.8', () => {
+    // r = 120 J/g → r/2.8 = 42.857 J/g (ISO 5725-6); the lab's 55 J/g on 12 degrees of freedom is larger, so it counts.
+    expect(repeatabilityTerm(120, { standardDeviation: 55, degreesOfFreedom: 12 }, 10)).toMatchObject({ standardDeviationJPerG: 55, source: 'lab-duplicates' })
+    // A lab scattering less than the method does not lower U below the method's term.
+    expect(repeatabilityTerm(120, { standardDeviation: 30, degreesOfFreedom: 12 }, 10)).toMatchObject({ source: 'method-limit' })
+    expect(repeatabilityTerm(120, { standardDeviation: 30, degreesOfFreedom: 12 }, 10).standardDeviationJPerG).toBeCloseTo(42.857, 3)
+    expect(repeatabilityTerm(120, { standardDeviation: 30, degreesOfFreedom: 12 }, 10).basis).toMatch(/do not lower it/)
+    expect(repeatabilityTerm(120, { standardDeviation: 55, degreesOfFreedom: 4 }, 10).standardDeviationJPerG).toBeCloseTo(42.857, 3)
   })
 
   it('carries U to every basis and to the net values', () => {
@@ -146,6 +155,15 @@ describe('the uncertainty budget (JCGM 100:2008)', () => {
       expect(e.netConstantPressure[b]).toBeGreaterThan(0)
     }
     expect(e.gross['dry-ash-free']).toBeGreaterThan(e.gross.dry!)
+    // q_v,net,d = q_v,gr,d − 206.0·H_d (ISO 1928): u² = u(q_gr,d)² + (206.0·u_H)², u_H = 0.05 % (differentiated by hand).
+    expect(e.netConstantVolume.dry).toBeCloseTo(2 * Math.hypot(uDry, 206.0 * 0.05), 3)
+    // Every value reported on every basis carries its U, and so do both mineral-matter-free values (ASTM D388).
+    for (const [values, us] of [[v.grossJPerG, e.gross], [v.netConstantPressureJPerG, e.netConstantPressure], [v.netConstantVolumeJPerG, e.netConstantVolume]] as const) {
+      expect(Object.keys(us).sort()).toEqual(Object.keys(values).sort())
+    }
+    expect(Object.keys(v.grossJPerG).sort()).toEqual(['air-dried', 'as-received', 'dry', 'dry-ash-free'])
+    expect(v.mineralMatterFree!.dryExpandedUncertaintyJPerG).toBeGreaterThan(0)
+    expect(v.mineralMatterFree!.moistExpandedUncertaintyJPerG).toBeGreaterThan(0)
   })
 })
 
