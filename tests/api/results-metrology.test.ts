@@ -122,6 +122,8 @@ describe('certificates need agreeing duplicates unless the policy allows a singl
     const text = pdfText(Buffer.from(await (await fetch(`${baseURL()}${issued.body.download}`, { headers: { cookie: supervisor } })).arrayBuffer()))
     expect(text).toContain('SINGLE DETERMINATION')
     expect(text).toContain('PROVISIONAL')
+    // The certificate names the typical value it rests on: an aid value typed without its uncertainty counts as typical.
+    expect(text).toMatch(/Aid heating value 46\s?000 J\/g is a typical value/)
     expect(text).toMatch(/Acid and sulfur corrections: Nitric acid determined on its own/)
     expect(text).toMatch(/reproducibility limit R = 300 J\/g/)
   })

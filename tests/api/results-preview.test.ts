@@ -53,13 +53,22 @@ describe('the preview on the result form is the result the server stores', () =>
     expect(Object.keys(preview.expandedUncertaintyByBasis!.netConstantPressure).sort()).toEqual(['air-dried', 'as-received', 'dry'])
   })
 
-  it('a capsule at its typical value: the preview says provisional, as the stored result does', async () => {
+  it('a capsule at a typical value: the preview says provisional, as the stored result does', async () => {
     const run = await firedRun({ aidMassG: 0.1, aidMaterialId: capsuleId })
-    // Typical gelatin capsule 17 500–19 500 J/g, midpoint 18 500 J/g (the demo library, from memory).
-    const body = { temperatureRiseK: (0.8 * BA_J_PER_G + FUSE_10CM_J + 0.1 * 18_500) / EPS, fuse: FUSE, moistureAdPct: 0, aidMassG: 0.1 }
+    // 18 500 J/g typed without its uncertainty counts as typical (± 5 % rectangular, common practice), whatever the
+    // lab has determined for the capsule meanwhile.
+    const body = { temperatureRiseK: (0.8 * BA_J_PER_G + FUSE_10CM_J + 0.1 * 18_500) / EPS, fuse: FUSE, moistureAdPct: 0, aidMassG: 0.1, aidHeatingValueJPerG: 18_500 }
     const { preview, saved } = await previewThenSave(run.id, body)
     expect(preview.provisional.length).toBeGreaterThan(0)
     expect(saved.values).toEqual(preview)
+  })
+
+  it('the capsule\'s value in force (library typical range or the lab\'s accepted series) is the one the preview uses', async () => {
+    const run = await firedRun({ aidMassG: 0.1, aidMaterialId: capsuleId })
+    const body = { temperatureRiseK: (0.8 * BA_J_PER_G + FUSE_10CM_J + 0.1 * 18_500) / EPS, fuse: FUSE, moistureAdPct: 0, aidMassG: 0.1 }
+    const { preview, saved } = await previewThenSave(run.id, body)
+    expect(saved.values).toEqual(preview)
+    expect(preview.provisional.length > 0).toBe(preview.corrections.aidValueSource === 'typical')
   })
 
   it('a revision previews with the ε of its first revision, and stores what it previewed', async () => {

@@ -104,9 +104,16 @@ describe('the uncertainty budget (JCGM 100:2008)', () => {
     expect(byName['energy equivalent']).toBeCloseTo(contributions[0]!, 4)
     expect(byName['temperature rise']).toBeCloseTo(contributions[1]!, 4)
     expect(byName['sample mass']).toBeCloseTo(contributions[2]!, 4)
+    expect(byName.fuse).toBeCloseTo(contributions[3]!, 4)
+    expect(byName.acid).toBeCloseTo(contributions[4]!, 4)
+    expect(byName.sulfur).toBeCloseTo(contributions[5]!, 4)
     expect(byName.aid).toBeCloseTo(contributions[6]!, 4)
     expect(byName['certified value of the standard']).toBeCloseTo(contributions[7]!, 4)
     expect(byName['repeatability (method r/2.8)']).toBeCloseTo(contributions[8]!, 4)
+    // Each share on the result page is (c_i·u_i)²/u_c², from the finite differences too.
+    const shareOf = (q: string) => v.uncertainty!.contributions.find(c => c.quantity === q)!.varianceShare
+    expect(shareOf('energy equivalent')).toBeCloseTo((contributions[0]! / uc) ** 2, 6)
+    expect(shareOf('repeatability (method r/2.8)')).toBeCloseTo((contributions[8]! / uc) ** 2, 6)
     // Shares of the variance add up to one.
     expect(v.uncertainty!.contributions.reduce((s, c) => s + c.varianceShare, 0)).toBeCloseTo(1, 12)
   })
