@@ -62,3 +62,9 @@ export const ACID_CONVENTION_TEXT: Readonly<Record<AcidConvention, string>> = {
   'nitric-acid': 'Nitric acid determined on its own; sulfur from the analysis corrected for the formation of sulfuric acid from sulfur dioxide, 302 kJ/mol = 94.2 J per (% S × g) (ISO 1928).',
   'nitric-acid-chlorine': 'Nitric acid determined on its own; sulfur from the analysis at 94.2 J per (% S × g) (ISO 1928); chlorine corrected for the hydrochloric acid formed.',
 }
+
+/** The convention in words with what decided it: what was measured in the washings, else the lab policy. */
+export function acidConventionWords(c: { acidConvention: AcidConvention, acidMeasured?: string }): string {
+  const text = ACID_CONVENTION_TEXT[c.acidConvention]
+  return c.acidMeasured === 'not measured' ? `No acid figure was entered, so the lab policy's convention applies (acid correction 0 J). ${text}` : text
+}

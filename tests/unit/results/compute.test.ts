@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { DEFAULT_POLICY, type LabPolicy } from '../../../shared/domain/policy'
 import {
-  computeResultValues, DEFAULT_U_CORRECTION_REL, DEFAULT_U_MASS_G, DEFAULT_U_THETA_K, NITRIC_ACID_FORMATION_J_PER_MOL, repeatabilityTerm,
+  acidConventionWords, computeResultValues, DEFAULT_U_CORRECTION_REL, DEFAULT_U_MASS_G, DEFAULT_U_THETA_K, NITRIC_ACID_FORMATION_J_PER_MOL, repeatabilityTerm,
   SULFUR_CORRECTION_ISO_J_PER_PCT_G, SULFUR_CORRECTION_J_PER_PCT_G, typicalRangeValue,
   resultContextFrom, type ResultContext, type ResultContextParts,
 } from '../../../shared/domain/results'
@@ -46,6 +46,9 @@ describe('acid corrections by the convention of what was measured', () => {
     expect(computeResultValues(inputs({ sulfurPct: 3 }), ctx()).corrections.sulfurJPerPctG).toBe(94.2)
     expect(computeResultValues(inputs({ sulfurPct: 3 }), ctx({}, { acidConvention: 'total-acid' })).corrections.sulfurJPerPctG).toBe(57.5)
     expect(computeResultValues(inputs({ sulfurPct: 3 }), ctx()).missing.join(' ')).toMatch(/No acid figure/)
+    // The page and the preview say that the policy, not a measurement, chose the convention.
+    expect(acidConventionWords(computeResultValues(inputs({ sulfurPct: 3 }), ctx()).corrections)).toMatch(/^No acid figure was entered, so the lab policy's convention applies.*94\.2 J per \(% S × g\) \(ISO 1928\)/)
+    expect(acidConventionWords(computeResultValues(inputs({ sulfurPct: 3, acid: { nitricAcidMol: 0.001 } }), ctx()).corrections)).toMatch(/^Nitric acid determined on its own/)
   })
 
   it('property: switching conventions changes the gross value by exactly (94.2 − 57.5) × S, whatever the sample', () => {
