@@ -36,13 +36,14 @@ beforeAll(async () => {
 })
 
 describe('day plan', () => {
-  it('gives nothing to a vessel away, only the check run to one awaiting verification, and standardisation first without an energy equivalent', async () => {
+  it('gives nothing to a vessel away, only the reference standard to one awaiting verification, and standardisation first without an energy equivalent', async () => {
     const { status, body } = await propose()
     expect(status).toBe(200)
     expect(body.problems).toEqual([])
     expect(on(body, C.id).firings).toEqual([])
     expect(on(body, C.id).note).toMatch(/takes nothing that day/)
-    expect(on(body, D.id).firings.map(f => f.kind)).toEqual(['check'])
+    // D was serviced but never standardised: a check needs an energy equivalent, so the series comes first (lab policy: 5 runs).
+    expect(on(body, D.id).firings.map(f => f.kind)).toEqual(Array(5).fill('standardisation'))
     expect(on(body, A.id).firings.slice(0, 5).map(f => [f.kind, f.runId])).toEqual(Array(5).fill(['standardisation', null]))
     expect(on(body, A.id).firings[0]!.why).toMatch(/No energy equivalent on record/)
   })
@@ -120,8 +121,8 @@ describe('day plan', () => {
       call('POST', '/api/day-plans', { cookie: await as('analyst2'), body: { day: next, vesselIds, assignment } }),
     ])
     expect([x.status, y.status].sort()).toEqual([201, 422])
-    // An empty day plan is nothing to accept.
-    const empty = await call('POST', '/api/day-plans', { cookie: await as('analyst'), body: { day: next, vesselIds, assignment: {} } })
+    // A day plan with nothing to fire (no run placed, and no check a vessel starts with) is nothing to accept.
+    const empty = await call('POST', '/api/day-plans', { cookie: await as('analyst'), body: { day: next, vesselIds: [C.id], assignment: {} } })
     expect(empty.status).toBe(422)
     expect(empty.body.data.fields[0].path).toBe('assignment')
   })
