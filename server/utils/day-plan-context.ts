@@ -82,6 +82,11 @@ export async function loadDayContext(db: Db | Tx, day: string, vesselIds: string
       const components = await buildCharge(db, o.run.components as RunComponent[])
       const anyVessel = assessmentVessel(views.values().next().value!)
       const parsed = chargeInputSchema.parse({ vessel: anyVessel, fillPressureMPa: o.run.fillPressureMPa, components, runRole: o.run.kind })
+      // The schema drops `library`: the material's own record is attached again, as the run page's assessment does.
+      parsed.components.forEach((c, i) => {
+        const library = components[i]?.library
+        if (library) (c as typeof components[number]).library = library
+      })
       charges.set(key, { ...parsed, components: await resolveComponents(parsed.components) } as ChargeInput)
     }
     catch {

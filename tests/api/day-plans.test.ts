@@ -9,6 +9,7 @@ import { newClient, receive } from '../support/samples'
 const day = new Date(Date.now() + 86_400_000).toISOString().slice(0, 10)
 let A: { id: string, name: string }, B: { id: string, name: string }, C: { id: string }, D: { id: string }
 let myRuns: string[] = []
+let myVerdicts: string[] = []
 let vesselIds: string[]
 
 interface Firing { runId: string | null, kind: string, order: number, why: string }
@@ -33,6 +34,7 @@ beforeAll(async () => {
   const res = await call('POST', `/api/plans/${plan.id}/from-samples`, { cookie: await as('analyst'), body: { sampleIds: samples.map(s => s.id) } })
   expect(res.status).toBe(201)
   myRuns = res.body.runs.map((r: { id: string }) => r.id)
+  myVerdicts = res.body.runs.map((r: { verdict: string }) => r.verdict)
 })
 
 describe('day plan', () => {
@@ -46,6 +48,9 @@ describe('day plan', () => {
     expect(on(body, D.id).firings.map(f => f.kind)).toEqual(Array(5).fill('standardisation'))
     expect(on(body, A.id).firings.slice(0, 5).map(f => [f.kind, f.runId])).toEqual(Array(5).fill(['standardisation', null]))
     expect(on(body, A.id).firings[0]!.why).toMatch(/No energy equivalent on record/)
+    // A library material's identity counts in the proposal as on the run page: clear runs need no signature there either.
+    expect(myVerdicts.every(v => v === 'clear')).toBe(true)
+    expect(on(body, A.id).firings.filter(f => f.runId && myRuns.includes(f.runId)).map(f => (f as Firing & { needsSignature: boolean }).needsSignature)).not.toContain(true)
   })
 
   it('never crosses a vessel\'s service limit: 6 firings left → at most 6, and what does not fit stays with a reason', async () => {

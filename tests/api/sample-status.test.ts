@@ -1,9 +1,9 @@
 import { beforeAll, describe, expect, it } from 'vitest'
 import { as, call, DEMO_PASSWORD } from '../support/api'
-import { auditRows } from '../support/db'
+import { auditRows, testDb } from '../support/db'
 import { newPlan } from '../support/factories'
 import { newClient, receive } from '../support/samples'
-import { BA_J_PER_G, FUSE_10CM_J, PASSWORD, benzoicAcidId, enterResult, fire, standardisedVessel } from '../unit/bench/bench-api'
+import { BA_J_PER_G, FUSE_10CM_J, PASSWORD, benzoicAcidId, enterResult, fire, readyRuns, standardisedVessel } from '../unit/bench/bench-api'
 
 // A received sample's state follows its runs: planned → tested once its determinations are fired with a result
 // (duplicates by default, lab policy; ISO 1928 reports the mean of duplicates, from memory) → reported at the certificate.
@@ -66,6 +66,11 @@ describe('sample status from its runs', () => {
     expect(issued.status, JSON.stringify(issued.body)).toBe(201)
     expect(await sampleStatus(sample.id)).toBe('reported')
     expect((await auditRows({ action: 'sample.report', entityId: sample.id }))[0]).toMatchObject({ old_values: { status: 'tested' } })
+    // The sample page lists each run's firing and result, and the certificate for the roles that may download it.
+    const page = (await call('GET', `/api/samples/${sample.id}`, { cookie: await as('analyst') })).body
+    expect(page.runs.map((r: { outcome: string | null, result: { status: string } | null }) => [r.outcome, r.result?.status ?? null])).toEqual([['complete', 'signed'], ['misfire', null], ['complete', 'signed']])
+    expect(page.reports).toEqual([expect.objectContaining({ reportNumber: issued.body.reportNumber, download: issued.body.download })])
+    expect((await call('GET', `/api/samples/${sample.id}`, { cookie: await as('technician') })).body.reports).toEqual([])
   })
 
   it('does not count a withdrawn run; a repeat planned after testing sends the sample back to planned', async () => {
@@ -84,20 +89,38 @@ describe('sample status from its runs', () => {
   })
 })
 
+/** A standardised vessel after a routine service: awaiting verification, so its day starts with a check run. */
+async function servicedVessel() {
+  const { vessel } = await standardisedVessel([10_000, 10_005, 9_995, 10_002, 9_998])
+  const serviced = await call('POST', `/api/vessels/${vessel.id}/services`, {
+    cookie: await as('technician'),
+    body: {
+      kind: 'routine', performedAt: new Date(Date.now() - 3_600_000).toISOString(), password: DEMO_PASSWORD,
+      seals: [{ position: 'head', name: 'Head O-ring', renewed: true, lot: 'HO-1' }, { position: 'valve', name: 'Valve seal', renewed: true, lot: 'VS-1' }, { position: 'electrode', name: 'Electrode seal', renewed: true, lot: 'ES-1' }],
+      // 12 N·m typical packing nut torque; 3.0 MPa usual fill (common practice).
+      valveSeatRenewed: true, electrodeInsulators: 'inspected', packingNutTorqueNm: 12, electrodeResistanceOhm: 1.5, leakTest: { passed: true, pressureMPa: 3.0 },
+      sealingSurfaces: 'good', threads: 'good', partsUsed: [], notes: '',
+    },
+  })
+  expect(serviced.status, JSON.stringify(serviced.body)).toBe(201)
+  return vessel
+}
+
 describe('check runs of an accepted day plan', () => {
+  it('takes a check run already waiting on the vessel instead of planning the reference standard twice', async () => {
+    const vessel = await servicedVessel()
+    const [waiting] = await readyRuns(vessel.id, [{ kind: 'check', massG: 1 }])
+    const day = new Date(Date.now() + 4 * 86_400_000).toISOString().slice(0, 10)
+    const accepted = await call('POST', '/api/day-plans', { cookie: await as('analyst'), body: { day, vesselIds: [vessel.id], assignment: { [vessel.id]: [] } } })
+    expect(accepted.status, JSON.stringify(accepted.body)).toBe(201)
+    expect(accepted.body.vessels[0].firings.map((f: { runId: string }) => f.runId)).toEqual([waiting!.id])
+    expect(await auditRows({ action: 'run.schedule', entityId: waiting!.id })).toHaveLength(1)
+    const { rows } = await testDb().query(`select count(*)::int as n from runs where vessel_id = $1 and kind = 'check'`, [vessel.id])
+    expect(rows[0].n).toBe(1)
+  })
+
   it('creates the check run a serviced vessel starts with: benzoic acid at the suggested mass, numbered, on the day plan, ready to fire', async () => {
-    const { vessel } = await standardisedVessel([10_000, 10_005, 9_995, 10_002, 9_998])
-    const serviced = await call('POST', `/api/vessels/${vessel.id}/services`, {
-      cookie: await as('technician'),
-      body: {
-        kind: 'routine', performedAt: new Date(Date.now() - 3_600_000).toISOString(), password: DEMO_PASSWORD,
-        seals: [{ position: 'head', name: 'Head O-ring', renewed: true, lot: 'HO-1' }, { position: 'valve', name: 'Valve seal', renewed: true, lot: 'VS-1' }, { position: 'electrode', name: 'Electrode seal', renewed: true, lot: 'ES-1' }],
-        // 12 N·m typical packing nut torque; 3.0 MPa usual fill (common practice).
-        valveSeatRenewed: true, electrodeInsulators: 'inspected', packingNutTorqueNm: 12, electrodeResistanceOhm: 1.5, leakTest: { passed: true, pressureMPa: 3.0 },
-        sealingSurfaces: 'good', threads: 'good', partsUsed: [], notes: '',
-      },
-    })
-    expect(serviced.status, JSON.stringify(serviced.body)).toBe(201)
+    const vessel = await servicedVessel()
     const day = new Date(Date.now() + 3 * 86_400_000).toISOString().slice(0, 10)
     const proposal = await call('POST', '/api/day-plans/proposal', { cookie: await as('analyst'), body: { day, vesselIds: [vessel.id] } })
     expect(proposal.body.vessels[0].firings.map((f: { kind: string, runId: string | null }) => [f.kind, f.runId])).toEqual([['check', null]])

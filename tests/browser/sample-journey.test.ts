@@ -1,7 +1,9 @@
+import { readFile } from 'node:fs/promises'
 import type { Page } from 'playwright-core'
 import { describe, expect, it } from 'vitest'
 import { as, call } from '../support/api'
 import { SCREENSHOT_DIR, openPage, shot, signInAs } from '../support/browser'
+import { pdfText } from '../unit/bench/pdf-text'
 
 // From the counter to the certificate: receive a sample, print its label, plan it from the queue, accept the day plan,
 // then find it by the label's code typed into the header's search box as a bench scanner does, submit its plan, fire
@@ -65,6 +67,16 @@ describe('a client\'s sample from receipt to the certificate', () => {
     await page.getByRole('status').filter({ hasText: 'accepted' }).waitFor()
 
     await shot(page, 'day-plan-accepted')
+    const day = await page.getByLabel('Day').inputValue()
+
+    // The vessel page counts the firings booked on accepted day plans towards its service forecast.
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Vessels' }).click()
+    await page.getByRole('link', { name: 'KR-1 Aster' }).click()
+    const forecast = page.getByTestId('vessel-day-plan-forecast')
+    const dayWords = new Date(`${day}T00:00:00Z`).toLocaleDateString('en-GB', { weekday: 'long', day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).replace(',', '')
+    await expect.poll(() => forecast.textContent()).toContain(dayWords)
+    await forecast.screenshot({ path: `${SCREENSHOT_DIR}/vessel-day-plan-forecast.png` })
+
     await scan(page, code)
     const runs = page.getByRole('region', { name: 'Runs' })
     await expect.poll(async () => (await runs.locator('tbody tr').count())).toBe(2)
@@ -109,8 +121,11 @@ describe('a client\'s sample from receipt to the certificate', () => {
       await resultForm.getByTestId('result-submit').click()
       await expect.poll(() => page.getByTestId('bench-notice').textContent()).toContain('result saved')
     }
+    await shot(page, 'journey-bench')
     await scan(page, code)
     await expect.poll(() => page.getByRole('region', { name: 'Receipt' }).textContent()).toContain('Tested')
+    // Gross as determined = (ε·θ − e_fuse)/m = 18 400 J/g for both determinations (ASTM D5865, with the θ above).
+    expect((await runs.textContent())!.match(/18,400\s*J\/g/g)).toHaveLength(2)
     await expect.poll(() => next.textContent()).toContain('a supervisor reviews and signs off')
     await shot(page, 'sample-page-tested')
 
@@ -138,6 +153,9 @@ describe('a client\'s sample from receipt to the certificate', () => {
     await expect.poll(() => page.getByRole('region', { name: 'Receipt' }).textContent()).toContain('Reported')
     await expect.poll(() => next.textContent()).toMatch(/Reported on certificate No\. \d+/)
     await shot(page, 'sample-page-reported')
+    const [download] = await Promise.all([page.waitForEvent('download'), page.locator('[data-testid^="sample-certificate-"]').first().click()])
+    const text = pdfText(await readFile((await download.path())!))
+    for (const item of [code, REF, 'Sablewick Mills Ltd', 'Rolled oat flakes, milled, screw-top jar', 'sealed', 'The results relate only to the item tested']) expect(text).toContain(item)
     await page.close()
   })
 })
