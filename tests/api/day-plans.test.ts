@@ -87,7 +87,7 @@ describe('day plan', () => {
     const bad = { ...assignment, [C.id]: [assignment[A.id]![0]!] }
     const refused = await call('POST', '/api/day-plans', { cookie: await as('analyst'), body: { day, vesselIds, assignment: bad } })
     expect(refused.status).toBe(422)
-    const { rows: before } = await testDb().query('select count(*)::int as n from runs where day_plan_id is not null')
+    const { rows: before } = await testDb().query('select count(*)::int as n from runs where day_plan_id is not null and vessel_id = any($1)', [vesselIds])
     expect(before[0].n).toBe(0)
     expect((await call('POST', '/api/day-plans', { cookie: await as('supervisor'), body: { day, vesselIds, assignment } })).status).toBe(403)
     const ok = await call('POST', '/api/day-plans', { cookie: await as('analyst'), body: { day, vesselIds, assignment } })

@@ -119,6 +119,16 @@ describe('check runs of an accepted day plan', () => {
     expect(rows[0].n).toBe(1)
   })
 
+  it('plans the check once when two analysts accept the same day at the same moment', async () => {
+    const vessel = await servicedVessel()
+    const day = new Date(Date.now() + 5 * 86_400_000).toISOString().slice(0, 10)
+    const body = { day, vesselIds: [vessel.id], assignment: { [vessel.id]: [] } }
+    const answers = await Promise.all([as('analyst'), as('analyst2')].map(async cookie => call('POST', '/api/day-plans', { cookie: await cookie, body })))
+    expect(answers.map(a => a.status).sort()).toEqual([201, 422])
+    const { rows } = await testDb().query(`select count(*)::int as n from runs where vessel_id = $1 and kind = 'check'`, [vessel.id])
+    expect(rows[0].n).toBe(1)
+  })
+
   it('creates the check run a serviced vessel starts with: benzoic acid at the suggested mass, numbered, on the day plan, ready to fire', async () => {
     const vessel = await servicedVessel()
     const day = new Date(Date.now() + 3 * 86_400_000).toISOString().slice(0, 10)

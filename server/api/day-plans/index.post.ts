@@ -10,6 +10,8 @@ export default defineEventHandler(async (event) => {
   const input = await parseBody(event, dayPlanAcceptSchema)
   const policy = await getPolicy()
   const result = await useDb().transaction(async (tx) => {
+    // Accepting day plans for the same vessels one after the other: the second sees the first (and its check runs).
+    await tx.select({ id: schema.vessels.id }).from(schema.vessels).where(inArray(schema.vessels.id, input.vesselIds)).orderBy(asc(schema.vessels.id)).for('update')
     const runIds = Object.values(input.assignment).flat()
     if (runIds.length) await tx.select({ id: schema.runs.id }).from(schema.runs).where(inArray(schema.runs.id, runIds)).orderBy(asc(schema.runs.id)).for('update')
     const answer = await dayPlanAnswer(tx, input, policy)
