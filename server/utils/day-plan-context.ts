@@ -1,7 +1,7 @@
 // Everything the day plan needs from the database: the chosen vessels as they will stand that morning, the runs open
 // for planning (planned from received samples, not yet fired nor on an accepted day plan), and the real charge
 // assessment of each run on each vessel.
-import { and, desc, eq, gte, inArray, isNotNull, isNull, ne, sql } from 'drizzle-orm'
+import { and, desc, eq, gte, inArray, isNotNull, isNull, notInArray, sql } from 'drizzle-orm'
 import { assessCharge, chargeInputSchema, resolveComponents } from '#shared/domain/assessment'
 import type { ChargeInput } from '#shared/domain/assessment'
 import type { AssessOn, DaySettings, PlanRun, PlanVessel } from '#shared/domain/day-plan'
@@ -17,12 +17,12 @@ export function daySettings(day: string, policy: LabPolicy): DaySettings {
   return { dayStart, workdayMinutes: policy.workdayHours * 60, cycleMinutes: policy.firingCycleMinutes }
 }
 
-/** Unfired firings each vessel has on accepted day plans, by day (check slots and runs not yet fired). */
+/** Firings each vessel still has on accepted day plans, by day: runs not yet fired nor withdrawn (and the check slots of plans accepted before those became runs). */
 export async function plannedFirings(db: Db | Tx, fromDay: string) {
   const plans = await db.select().from(schema.dayPlans).where(gte(schema.dayPlans.day, fromDay))
   if (!plans.length) return [] as { day: string, vesselId: string, firings: number }[]
   const open = await db.select({ dayPlanId: schema.runs.dayPlanId, vesselId: schema.runs.vesselId, n: sql<number>`count(*)::int` }).from(schema.runs)
-    .where(and(inArray(schema.runs.dayPlanId, plans.map(p => p.id)), ne(schema.runs.status, 'fired'))).groupBy(schema.runs.dayPlanId, schema.runs.vesselId)
+    .where(and(inArray(schema.runs.dayPlanId, plans.map(p => p.id)), notInArray(schema.runs.status, ['fired', 'withdrawn', 'rejected']))).groupBy(schema.runs.dayPlanId, schema.runs.vesselId)
   const out: { day: string, vesselId: string, firings: number }[] = []
   for (const p of plans) {
     const proposal = p.proposal as { vessels: { vesselId: string, firings: { runId: string | null }[] }[] }
@@ -52,6 +52,8 @@ export async function loadDayContext(db: Db | Tx, day: string, vesselIds: string
     let firstNeeds: PlanVessel['firstNeeds'] = null
     // A check placed by an accepted plan of the same day already opens that day.
     if (sameDay > 0) firstNeeds = null
+    // A check is judged against the energy equivalent: a serviced vessel without one is standardised first.
+    else if (v.state === 'awaiting-verification' && !ee) firstNeeds = { kind: 'standardisation', firings: policy.standardisationRuns, reason: `${v.name} was serviced and has no energy equivalent on record: a standardisation series of ${policy.standardisationRuns} runs first (lab policy); the check run that returns it to samples follows once the energy equivalent is accepted.` }
     else if (v.state === 'awaiting-verification') firstNeeds = { kind: 'check', firings: 1, reason: `${v.name} was serviced: a check run with the reference standard must pass before any sample (vessel state).` }
     else if (!ee) firstNeeds = { kind: 'standardisation', firings: policy.standardisationRuns, reason: `No energy equivalent on record for ${v.name}: a standardisation series of ${policy.standardisationRuns} runs first (lab policy).` }
     else {
@@ -80,6 +82,11 @@ export async function loadDayContext(db: Db | Tx, day: string, vesselIds: string
       const components = await buildCharge(db, o.run.components as RunComponent[])
       const anyVessel = assessmentVessel(views.values().next().value!)
       const parsed = chargeInputSchema.parse({ vessel: anyVessel, fillPressureMPa: o.run.fillPressureMPa, components, runRole: o.run.kind })
+      // The schema drops `library`: the material's own record is attached again, as the run page's assessment does.
+      parsed.components.forEach((c, i) => {
+        const library = components[i]?.library
+        if (library) (c as typeof components[number]).library = library
+      })
       charges.set(key, { ...parsed, components: await resolveComponents(parsed.components) } as ChargeInput)
     }
     catch {

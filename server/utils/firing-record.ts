@@ -169,6 +169,7 @@ export async function recordFiring(act: Act, id: string, key: string, body: Firi
         newValues: { status: 'fired', firingId, outcome: body.outcome, weighedMassG: body.weighedMassG, aidMassG: body.aidMassG ?? null, vesselId: run.vesselId, vessel: { firingsSinceService: after.firingsSinceService, firingsSinceRequalification: after.firingsSinceRequalification, firingsTotal: after.firingsTotal } },
         reason: body.observations || null,
       })
+      await settleSampleStatus(tx, act, run.sampleId, `firing of ${run.sampleCode} #${run.seq}`, policy)
       if (effect.lockOut) {
         await audit(tx, act, {
           action: 'vessel.lock-out', entity: 'vessel', entityId: run.vesselId,

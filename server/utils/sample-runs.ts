@@ -13,14 +13,17 @@ const PROBE_MASS_G = 1
  * unblocked mass, else 1 g, and the stored assessment says why.
  */
 export async function suggestedRun(db: Db | Tx, sample: SampleRow, vessel: VesselView, fillPressureMPa: number, policy: LabPolicy) {
-  const charge = (massG: number): RunComponent[] => [
-    { role: 'sample', massG, ...(sample.materialId ? { materialId: sample.materialId } : { name: sample.description.slice(0, 200) }) },
-    ROUTINE_FUSE,
-  ]
-  const probe = await assessRun(db, { vessel, fillPressureMPa, components: charge(PROBE_MASS_G), kind: 'sample' }, policy)
+  const burns: RunComponent = { role: 'sample', ...(sample.materialId ? { materialId: sample.materialId } : { name: sample.description.slice(0, 200) }) }
+  return suggestedCharge(db, burns, 'sample', vessel, fillPressureMPa, policy)
+}
+
+/** The charge of `burns` (without its mass) and a routine fuse at the mass the assessment suggests for the target energy. */
+export async function suggestedCharge(db: Db | Tx, burns: RunComponent, kind: string, vessel: VesselView, fillPressureMPa: number, policy: LabPolicy) {
+  const charge = (massG: number): RunComponent[] => [{ ...burns, massG }, ROUTINE_FUSE]
+  const probe = await assessRun(db, { vessel, fillPressureMPa, components: charge(PROBE_MASS_G), kind }, policy)
   const s = probe.assessment.suggestions
   const massG = s.targetSampleMassG ?? s.maxSampleMassG ?? PROBE_MASS_G
   if (massG === PROBE_MASS_G) return { components: charge(massG), ...probe }
   const components = charge(massG)
-  return { components, ...await assessRun(db, { vessel, fillPressureMPa, components, kind: 'sample' }, policy) }
+  return { components, ...await assessRun(db, { vessel, fillPressureMPa, components, kind }, policy) }
 }

@@ -75,6 +75,7 @@ export async function signRun(signer: Signer, decision: Decision, id: string, in
       oldValues: { status: run.status }, newValues: { status, signature: { id: sig.id, meaning: sig.meaning, signedAt: sig.signedAt, boundHash: sig.boundHash } },
       reason: input.reason,
     })
+    if (decision === 'reject') await settleSampleStatus(tx, signer, run.sampleId, `rejection of ${run.sampleCode} #${run.seq}`, policy)
     const [planner] = await tx.select({ email: schema.users.email, active: schema.users.active }).from(schema.users).where(eq(schema.users.id, run.plannedBy))
     const [plan] = await tx.select({ name: schema.plans.name }).from(schema.plans).where(eq(schema.plans.id, run.planId))
     if (planner?.active) {

@@ -162,7 +162,7 @@ export function layoutDay(vessels: PlanVessel[], runs: PlanRun[], assignment: As
     }
     const note = cap === 0
       ? `${v.name} takes nothing that day: ${limit}.`
-      : `${v.name}: up to ${cap} firing${cap === 1 ? '' : 's'} that day (${limit}).${v.blocksSampleRuns && !v.blocksAllFirings ? ' Only the check run until it passes.' : ''}`
+      : `${v.name}: up to ${cap} firing${cap === 1 ? '' : 's'} that day (${limit}).${v.blocksSampleRuns && !v.blocksAllFirings ? ' No sample until a check run passes.' : ''}`
     return {
       vesselId: v.id,
       name: v.name,

@@ -9,6 +9,7 @@ import { newClient, receive } from '../support/samples'
 const day = new Date(Date.now() + 86_400_000).toISOString().slice(0, 10)
 let A: { id: string, name: string }, B: { id: string, name: string }, C: { id: string }, D: { id: string }
 let myRuns: string[] = []
+let myVerdicts: string[] = []
 let vesselIds: string[]
 
 interface Firing { runId: string | null, kind: string, order: number, why: string }
@@ -33,18 +34,23 @@ beforeAll(async () => {
   const res = await call('POST', `/api/plans/${plan.id}/from-samples`, { cookie: await as('analyst'), body: { sampleIds: samples.map(s => s.id) } })
   expect(res.status).toBe(201)
   myRuns = res.body.runs.map((r: { id: string }) => r.id)
+  myVerdicts = res.body.runs.map((r: { verdict: string }) => r.verdict)
 })
 
 describe('day plan', () => {
-  it('gives nothing to a vessel away, only the check run to one awaiting verification, and standardisation first without an energy equivalent', async () => {
+  it('gives nothing to a vessel away, only the reference standard to one awaiting verification, and standardisation first without an energy equivalent', async () => {
     const { status, body } = await propose()
     expect(status).toBe(200)
     expect(body.problems).toEqual([])
     expect(on(body, C.id).firings).toEqual([])
     expect(on(body, C.id).note).toMatch(/takes nothing that day/)
-    expect(on(body, D.id).firings.map(f => f.kind)).toEqual(['check'])
+    // D was serviced but never standardised: a check needs an energy equivalent, so the series comes first (lab policy: 5 runs).
+    expect(on(body, D.id).firings.map(f => f.kind)).toEqual(Array(5).fill('standardisation'))
     expect(on(body, A.id).firings.slice(0, 5).map(f => [f.kind, f.runId])).toEqual(Array(5).fill(['standardisation', null]))
     expect(on(body, A.id).firings[0]!.why).toMatch(/No energy equivalent on record/)
+    // A library material's identity counts in the proposal as on the run page: clear runs need no signature there either.
+    expect(myVerdicts.every(v => v === 'clear')).toBe(true)
+    expect(on(body, A.id).firings.filter(f => f.runId && myRuns.includes(f.runId)).map(f => (f as Firing & { needsSignature: boolean }).needsSignature)).not.toContain(true)
   })
 
   it('never crosses a vessel\'s service limit: 6 firings left → at most 6, and what does not fit stays with a reason', async () => {
@@ -81,7 +87,7 @@ describe('day plan', () => {
     const bad = { ...assignment, [C.id]: [assignment[A.id]![0]!] }
     const refused = await call('POST', '/api/day-plans', { cookie: await as('analyst'), body: { day, vesselIds, assignment: bad } })
     expect(refused.status).toBe(422)
-    const { rows: before } = await testDb().query('select count(*)::int as n from runs where day_plan_id is not null')
+    const { rows: before } = await testDb().query('select count(*)::int as n from runs where day_plan_id is not null and vessel_id = any($1)', [vesselIds])
     expect(before[0].n).toBe(0)
     expect((await call('POST', '/api/day-plans', { cookie: await as('supervisor'), body: { day, vesselIds, assignment } })).status).toBe(403)
     const ok = await call('POST', '/api/day-plans', { cookie: await as('analyst'), body: { day, vesselIds, assignment } })
@@ -120,8 +126,8 @@ describe('day plan', () => {
       call('POST', '/api/day-plans', { cookie: await as('analyst2'), body: { day: next, vesselIds, assignment } }),
     ])
     expect([x.status, y.status].sort()).toEqual([201, 422])
-    // An empty day plan is nothing to accept.
-    const empty = await call('POST', '/api/day-plans', { cookie: await as('analyst'), body: { day: next, vesselIds, assignment: {} } })
+    // A day plan with nothing to fire (no run placed, and no check a vessel starts with) is nothing to accept.
+    const empty = await call('POST', '/api/day-plans', { cookie: await as('analyst'), body: { day: next, vesselIds: [C.id], assignment: {} } })
     expect(empty.status).toBe(422)
     expect(empty.body.data.fields[0].path).toBe('assignment')
   })

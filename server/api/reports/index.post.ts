@@ -1,4 +1,3 @@
-import { eq } from 'drizzle-orm'
 import { z } from 'zod'
 
 const body = z.object({ sampleCode: z.string().trim().min(1, 'required').max(80) }).strict()
@@ -20,10 +19,7 @@ export default defineEventHandler(async (event) => {
       action: 'report.issue', entity: 'report', entityId: row!.id,
       newValues: { reportNumber: row!.reportNumber, sampleCode, resultIds, replaces: content.replaces, rows: content.rows },
     })
-    if (sampleId) {
-      await tx.update(schema.samples).set({ status: 'reported', updatedAt: new Date() }).where(eq(schema.samples.id, sampleId))
-      await audit(tx, event, { action: 'sample.report', entity: 'sample', entityId: sampleId, newValues: { status: 'reported', reportNumber: row!.reportNumber } })
-    }
+    if (sampleId) await reportSample(tx, event, sampleId, row!.reportNumber)
     return row!
   })
   setResponseStatus(event, 201)

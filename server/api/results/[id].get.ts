@@ -25,7 +25,7 @@ export default defineEventHandler(async (event) => {
     result: revisions.find(r => r.id === id)!,
     revisions,
     run: {
-      id: run.id, planId: run.planId, seq: run.seq, sampleCode: run.sampleCode, kind: run.kind, vesselId: run.vesselId, components,
+      id: run.id, planId: run.planId, seq: run.seq, sampleCode: run.sampleCode, sampleId: run.sampleId, kind: run.kind, vesselId: run.vesselId, components,
       plannedSampleMassG: components.filter(c => c.role === 'sample').reduce((a, c) => a + (c.massG ?? 0), 0),
       aid: aid ? { name: aid.name ?? 'combustion aid', massG: aid.massG ?? 0 } : null,
       fuse: fuse ? { wire: fuse.wire ?? 'nichrome', lengthCm: fuse.lengthCm ?? null, massG: fuse.massG ?? null } : null,

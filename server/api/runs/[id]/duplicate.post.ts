@@ -15,9 +15,10 @@ export default defineEventHandler(async (event) => {
     const { assessment, chargeHash } = await assessRun(tx, { vessel, fillPressureMPa: src.fillPressureMPa, components, kind: src.kind }, policy)
     const [row] = await insertNumberedRuns(tx, src.planId, [{
       sampleCode: src.sampleCode, kind: src.kind, vesselId: src.vesselId, fillPressureMPa: src.fillPressureMPa,
-      components, assessment, verdict: assessment.verdict, chargeHash, status: 'draft', note: src.note, plannedBy: user.id,
+      components, assessment, verdict: assessment.verdict, chargeHash, status: 'draft', note: src.note, plannedBy: user.id, sampleId: src.sampleId,
     }])
     await audit(tx, event, { action: 'run.duplicate', entity: 'run', entityId: row!.id, newValues: { ...row!, assessment: undefined, duplicateOf: id } })
+    await settleSampleStatus(tx, event, src.sampleId, `repeat of ${src.sampleCode} #${src.seq}`, policy)
     return row!
   })
   setResponseStatus(event, 201)
