@@ -2,7 +2,8 @@
 // functions with the most inclusive time (each sample counted once per function on its stack), and self time by
 // package or source area. Usage: node scripts/profile-summary.mjs file.cpuprofile [--top 25] [--requests N]
 // With --requests, each figure is also given per request (the profile's busy time divided by N); with --from-ms and
-// --to-ms only the samples taken that long after the profile began count (to leave out start-up and warm-up).
+// --to-ms only the samples taken that long after the profile began count (to leave out start-up and warm-up); with
+// --last-ms only the samples of the profile's last N ms. --show NAME,NAME prints the inclusive time of those functions.
 import { readFileSync } from 'node:fs'
 
 const args = process.argv.slice(2)
@@ -19,6 +20,9 @@ const top = option('top', 25)
 const requests = option('requests', 0)
 const fromMs = option('from-ms', 0)
 const toMs = option('to-ms', Infinity)
+const lastMs = option('last-ms', 0)
+const showIndex = args.indexOf('--show')
+const show = showIndex >= 0 ? args[showIndex + 1].split(',') : []
 const profile = JSON.parse(readFileSync(file, 'utf8'))
 
 const nodes = new Map(profile.nodes.map(n => [n.id, n]))
@@ -47,11 +51,13 @@ const byArea = new Map()
 let total = 0
 let idle = 0
 const add = (map, key, dt) => map.set(key, (map.get(key) ?? 0) + dt)
+const span = profile.timeDeltas.reduce((a, b) => a + b, 0) / 1000
+const from = lastMs ? span - lastMs : fromMs
 let clock = 0
 profile.samples.forEach((id, i) => {
   const dt = (profile.timeDeltas[i] ?? 0) / 1000
   clock += dt
-  if (clock < fromMs || clock > toMs) return
+  if (clock < from || clock > toMs) return
   const node = nodes.get(id)
   if (!node) return
   total += dt
@@ -87,3 +93,4 @@ console.log(`sampled ${total.toFixed(0)} ms, busy ${busy.toFixed(0)} ms, idle ${
 print('Self time by package or area', byArea, 20)
 print('Self time by function', self)
 print('Inclusive time by function (each sample once per function on its stack)', inclusive)
+if (show.length) print(`Inclusive time of ${show.join(', ')}`, new Map([...inclusive].filter(([key]) => show.includes(key.split(' ')[0]))), 50)
