@@ -131,8 +131,8 @@ async function latency(name: string, request: () => Promise<Response>, n = 40, o
   for (let i = 0; i < n + 3; i++) {
     const t0 = performance.now()
     const res = await request()
+    if (res.status !== ok) throw new Error(`${name} answered ${res.status}: ${await res.text()}`)
     await res.arrayBuffer()
-    if (res.status !== ok) throw new Error(`${name} answered ${res.status}`)
     if (i >= 3) times.push(performance.now() - t0)
   }
   return { name, p50: median(times), p95: p95(times), n }
@@ -192,16 +192,19 @@ async function readyRuns(admin: string, analyst: string, n: number) {
   const planId = ((await p.json()) as { id: string }).id
   const ids: string[] = []
   for (let i = 0; i < n; i++) {
-    // 0.8 g at 26 454 J/g (NIST SRM 39j, weighed in air) on 10 cm Ni-Cr fuse: a clear charge in a 33 kJ vessel.
+    // 0.8 g at 26 454 J/g (NIST SRM 39j, weighed in air) on 10 cm Ni-Cr fuse: a clear charge in a 33 kJ vessel. The
+    // sample's structure (benzoic acid) is its identity: a sample without one needs a supervisor's approval first.
     const r = await fetch(`${BASE}/api/plans/${planId}/runs`, {
       method: 'POST', headers: { ...json, cookie: analyst },
-      body: JSON.stringify({ sampleCode: `B-${tag}-${i}`, components: [{ role: 'sample', name: 'bench sample', massG: 0.8, heatingValueJPerG: 26454 }, { role: 'fuse', wire: 'nichrome', lengthCm: 10 }] }),
+      body: JSON.stringify({ sampleCode: `B-${tag}-${i}`, components: [{ role: 'sample', name: 'bench sample', massG: 0.8, heatingValueJPerG: 26454, smiles: 'OC(=O)c1ccccc1' }, { role: 'fuse', wire: 'nichrome', lengthCm: 10 }] }),
     })
     if (r.status !== 201) throw new Error(`POST runs answered ${r.status}: ${await r.text()}`)
     ids.push(((await r.json()) as { id: string }).id)
   }
   const s = await fetch(`${BASE}/api/plans/${planId}/submit`, { method: 'POST', headers: { ...json, cookie: analyst }, body: '{}' })
   if (s.status !== 200) throw new Error(`submit answered ${s.status}`)
+  const counts = ((await s.json()) as { counts: Record<string, number> }).counts
+  if (counts.ready !== n) throw new Error(`submitted runs are not all ready to fire: ${JSON.stringify(counts)}`)
   return ids
 }
 

@@ -12,6 +12,29 @@ export interface AuthedUser {
 // Routes reachable without a session; every other /api route answers 401 first.
 export const PUBLIC_API_ROUTES = new Set(['POST /api/auth/login', 'GET /api/_auth/session', 'DELETE /api/_auth/session', 'GET /api/health', 'HEAD /api/health'])
 
+// The session row and its user, read at every request: an ended session or a disabled user is refused at once, on
+// every instance. Prepared once per process (the statement is planned once per database connection).
+let sessionQuery: ReturnType<typeof prepareSessionQuery> | undefined
+function prepareSessionQuery() {
+  const s = schema.userSessions
+  const u = schema.users
+  return useDb().select({
+    revokedAt: s.revokedAt, lastSeenAt: s.lastSeenAt, createdAt: s.createdAt,
+    userId: u.id, email: u.email, name: u.name, roles: u.roles, active: u.active,
+  }).from(s).innerJoin(u, eq(u.id, s.userId)).where(eq(s.id, sql.placeholder('id'))).prepare('emberline_session_user')
+}
+
+/**
+ * A server render's own requests (each useFetch during rendering is an internal request) carry the render's context
+ * in `__unenv__`, which a request from the network never has. The first of them to resolve the session leaves the
+ * answer there, and the others of the same render take it instead of reading the same rows again.
+ */
+type RenderContext = { renderSession?: { sessionId: string, user: Promise<AuthedUser | null> } }
+function renderContext(event: H3Event): RenderContext | undefined {
+  const context = (event.node.req as { __unenv__?: RenderContext }).__unenv__
+  return context && context !== event.context ? context : undefined
+}
+
 /**
  * Resolves the signed-in user from the sealed cookie and the database: the cookie names a session row, which must be
  * open (not ended), not idle or older than the policy allows, and belong to an active user. Anything else ends it.
@@ -24,27 +47,35 @@ export async function loadSessionUser(event: H3Event): Promise<AuthedUser | null
     if (session.user) await clearUserSession(event)
     return (event.context.user = null)
   }
-  const db = useDb()
-  const [found] = await db.select({ s: schema.userSessions, u: schema.users }).from(schema.userSessions)
-    .innerJoin(schema.users, eq(schema.users.id, schema.userSessions.userId))
-    .where(eq(schema.userSessions.id, sessionId))
-  const policy = await getPolicy()
-  const now = Date.now()
-  const idle = found ? now - found.s.lastSeenAt.getTime() > policy.sessionIdleMinutes * 60_000 : false
-  const tooOld = found ? now - found.s.createdAt.getTime() > policy.sessionAbsoluteHours * 3_600_000 : false
-  if (!found || found.s.revokedAt || !found.u.active || found.u.id !== session.user.id || idle || tooOld) {
-    if (found && !found.s.revokedAt) await endSession(db, sessionId, found.u.active ? 'expired' : 'disabled')
-    await clearUserSession(event)
-    return (event.context.user = null)
+  const render = renderContext(event)
+  const shared = render?.renderSession?.sessionId === sessionId ? await render.renderSession.user : null
+  if (shared) {
+    event.context.sessionId = sessionId
+    return (event.context.user = shared)
   }
-  const row = found.u
-  const user: AuthedUser = { id: row.id, email: row.email, name: row.name, roles: row.roles as Role[] }
+  const resolving = resolveSession(event, sessionId, session.user.id)
+  if (render) render.renderSession = { sessionId, user: resolving }
+  return (event.context.user = await resolving)
+}
+
+async function resolveSession(event: H3Event, sessionId: string, cookieUserId: string): Promise<AuthedUser | null> {
+  const db = useDb()
+  sessionQuery ??= prepareSessionQuery()
+  const [[found], policy] = await Promise.all([sessionQuery.execute({ id: sessionId }), getPolicy()])
+  const now = Date.now()
+  const idle = found ? now - found.lastSeenAt.getTime() > policy.sessionIdleMinutes * 60_000 : false
+  const tooOld = found ? now - found.createdAt.getTime() > policy.sessionAbsoluteHours * 3_600_000 : false
+  if (!found || found.revokedAt || !found.active || found.userId !== cookieUserId || idle || tooOld) {
+    if (found && !found.revokedAt) await endSession(db, sessionId, found.active ? 'expired' : 'disabled')
+    await clearUserSession(event)
+    return null
+  }
   // Slide the idle window in the database, at most once a minute, so that a busy page does not write at each request.
-  if (now - found.s.lastSeenAt.getTime() > 60_000) {
+  if (now - found.lastSeenAt.getTime() > 60_000) {
     await db.update(schema.userSessions).set({ lastSeenAt: sql`now()` }).where(eq(schema.userSessions.id, sessionId))
   }
   event.context.sessionId = sessionId
-  return (event.context.user = user)
+  return { id: found.userId, email: found.email, name: found.name, roles: found.roles as Role[] }
 }
 
 /** 401 without a signed-in, active user. */

@@ -61,7 +61,9 @@ export interface VesselServiceState {
   evaluatedAt: Date
 }
 
-const count = (n: number) => new Intl.NumberFormat('en-GB').format(n)
+// One formatter for every count: building one per call was a large share of the fleet route's time (docs/benchmarks.md).
+const counts = new Intl.NumberFormat('en-GB')
+const count = (n: number) => counts.format(n)
 const isoDate = (d: Date) => d.toISOString().slice(0, 10)
 const plural = (n: number, word: string) => `${count(n)} ${word}${n === 1 ? '' : 's'}`
 
