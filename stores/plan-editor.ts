@@ -1,5 +1,6 @@
 import { defineStore } from 'pinia'
 import { blankDraft, draftFromRun, useLiveAssessment, type ChargeDraft } from '~/composables/useChargeDraft'
+import { materialNamed } from '~/composables/useMaterialSearch'
 import type { MaterialOption, Run, VesselSummary } from '~/composables/usePlanData'
 import { useSettingsStore } from './settings'
 
@@ -31,10 +32,13 @@ export const usePlanEditorStore = defineStore('plan-editor', () => {
   let lastKeys = ''
   let lastAt = 0
   let restoring = false
+  // Nothing is remembered before a page opens the plan: the server's draft arriving in the browser is not a change.
+  let tracking = false
   // Every change of the draft is remembered; a burst of typing in one field counts once.
   watch(draft, (now) => {
     const keys = changedKeys(last, now)
     if (!keys) return
+    if (!tracking) { last = copy(now); return }
     if (!restoring) {
       const sameBurst = keys === lastKeys && Date.now() - lastAt < GROUP_MS
       if (!sameBurst) history.value = [...history.value, last].slice(-UNDO_DEPTH)
@@ -53,6 +57,7 @@ export const usePlanEditorStore = defineStore('plan-editor', () => {
 
   /** Opens a plan: a different plan starts from a blank row, the same plan keeps what was typed. */
   function begin(id: string, vesselId: string, fill: number) {
+    tracking = true
     if (planId.value === id) return
     planId.value = id
     editing.value = null
@@ -94,9 +99,8 @@ export const usePlanEditorStore = defineStore('plan-editor', () => {
   async function resolveTypedName() {
     const name = draft.value.materialName.trim()
     if (!name || materials.value.some(m => m.name.toLowerCase() === name.toLowerCase())) return
-    const found = await $fetch('/api/materials', { query: { q: name, limit: 5, derived: '0' } }).catch(() => null)
-    const exact = found?.rows.find(m => m.name.toLowerCase() === name.toLowerCase())
-    if (exact) remember(exact as MaterialOption)
+    const exact = await materialNamed(name)
+    if (exact) remember(exact)
   }
 
   const vessel = computed(() => vessels.value.find(v => v.id === draft.value.vesselId))

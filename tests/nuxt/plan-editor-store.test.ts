@@ -24,7 +24,7 @@ function editor() {
 
 beforeEach(() => {
   freshStores()
-  useSettingsStore().settings = { labName: 'Test lab', policy: DEFAULT_POLICY }
+  useSettingsStore().settings = { labName: 'Test lab', policy: DEFAULT_POLICY, updatedAt: null }
 })
 
 describe('plan editor store', () => {
@@ -62,6 +62,18 @@ describe('plan editor store', () => {
     // After a save the row starts afresh: the saved run is in the plan, not a draft to bring back.
     store.startNext(vessel.id, 3, store.draft)
     expect(store.canUndo).toBe(false)
+  })
+
+  it('does not count the row that arrives from the server-rendered page as a change', () => {
+    const store = usePlanEditorStore()
+    // What Pinia does when the browser takes over the server's state, before the page opens the plan.
+    store.planId = 'plan-1'
+    store.draft = { ...store.draft, sampleCode: 'C-30', vesselId: vessel.id }
+    store.begin('plan-1', vessel.id, 3)
+    expect(store.canUndo).toBe(false)
+    store.draft.note = 'typed in the browser'
+    store.undo()
+    expect(store.draft).toMatchObject({ sampleCode: 'C-30', vesselId: vessel.id, note: '' })
   })
 
   it('keeps the typed row when the same plan is opened again, and starts blank for another plan', () => {

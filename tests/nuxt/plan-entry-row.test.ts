@@ -19,7 +19,7 @@ const vessel: VesselSummary = {
 registerEndpoint('/api/materials', () => ({ rows: [], total: 0, page: 1, pageSize: 200 }))
 beforeEach(() => {
   freshStores()
-  useSettingsStore().settings = { labName: 'Test lab', policy: DEFAULT_POLICY }
+  useSettingsStore().settings = { labName: 'Test lab', policy: DEFAULT_POLICY, updatedAt: null }
 })
 
 function mountRow() {

@@ -11,7 +11,7 @@ let reads = 0
 let labName = 'Harbour Fuels Laboratory'
 registerEndpoint('/api/settings', () => {
   reads++
-  return { labName, policy: { ...DEFAULT_POLICY, defaultFillPressureMPa: reads === 1 ? 3 : 3.2 } }
+  return { labName, updatedAt: null, policy: { ...DEFAULT_POLICY, defaultFillPressureMPa: reads === 1 ? 3 : 3.2 } }
 })
 
 // Two views of one page, each asking for the settings as every page does.
