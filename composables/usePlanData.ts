@@ -25,7 +25,18 @@ export interface MaterialOption {
   formula: string | null, smiles: string | null, declaredHazard: string, decompositionEnergyJPerG: number | null, typicalRange: { minJPerG: number, maxJPerG: number } | null
 }
 
-/** The whole materials library for pickers (names and the values a charge needs; no derived figures). */
-export function useMaterialOptions() {
-  return useFetch<{ rows: MaterialOption[] }>('/api/materials', { key: 'materials:options', query: { pageSize: 200, derived: '0' }, default: () => ({ rows: [] }) })
+/** The library materials named by these runs' components. */
+export const materialIdsOf = (runs: readonly Pick<Run, 'components'>[]) => [...new Set(runs.flatMap(r => r.components.map(c => c.materialId).filter((m): m is string => !!m)))]
+
+/**
+ * The library materials a page names by id (the materials of a plan's runs), with the values a charge needs.
+ * Pickers search the library on the server instead (MaterialPicker), so no page loads the whole library.
+ */
+export function useMaterialsNamed(ids: MaybeRefOrGetter<string[]>) {
+  const joined = computed(() => [...toValue(ids)].sort().slice(0, 200).join(','))
+  return useFetch<{ rows: MaterialOption[] }>('/api/materials', {
+    key: () => `materials:named:${joined.value}`,
+    query: { ids: joined, derived: '0', pageSize: 200 },
+    default: () => ({ rows: [] }),
+  })
 }

@@ -90,6 +90,11 @@ function done(value: number, basis: PressureBasis | undefined, kind: QuantityKin
   return { ok: true, value, unit, basis, understood: `${shown} ${unit}${basis ? ' gauge' : ''}` }
 }
 
+/** A value in the kind's API unit expressed in another unit of the same kind (a field kept in kJ, mg, L …). */
+export function inUnit(value: number, kind: QuantityKind, unit: string): number {
+  return mathjs().unit(value, QUANTITY_KINDS[kind].math).toNumber(unit.split('/').map(p => ALIASES[p.trim()] ?? p.trim()).join('/'))
+}
+
 /** One CSV cell: undefined when empty, the number in the API unit, or an Error naming what is wrong. */
 export function parseQuantityCell(raw: string | undefined, kind: QuantityKind): number | undefined | Error {
   const parsed = parseQuantity(raw ?? '', kind)

@@ -1,11 +1,13 @@
 // The plan's entry row: typed quantities reach the draft in the API's units, the live check answers, Enter saves.
-import { mountSuspended } from '@nuxt/test-utils/runtime'
-import { describe, expect, it } from 'vitest'
+import { mountSuspended, registerEndpoint } from '@nuxt/test-utils/runtime'
+import { beforeEach, describe, expect, it } from 'vitest'
 import { defineComponent, h, ref } from 'vue'
 import PlanEntryRow from '~/components/plan/PlanEntryRow.vue'
-import { blankDraft, type ChargeDraft } from '~/composables/useChargeDraft'
 import type { MaterialOption, VesselSummary } from '~/composables/usePlanData'
 import { DEFAULT_POLICY } from '#shared/domain/policy'
+import { usePlanEditorStore } from '~/stores/plan-editor'
+import { useSettingsStore } from '~/stores/settings'
+import { freshStores } from '../support/nuxt-stores'
 
 // Benzoic acid, 26 454 J/g weighed in air (NIST SRM 39j certificate), as in the unit tests' factories.
 const benzoic: MaterialOption = { id: 'm-ba', name: 'Benzoic acid', category: 'standard', heatingValueJPerG: 26454, composition: null, compositionBasis: null, formula: 'C7H6O2', smiles: null, declaredHazard: 'none', decompositionEnergyJPerG: null, typicalRange: null }
@@ -14,17 +16,23 @@ const vessel: VesselSummary = {
   ratedEnergyJ: 33000, maxChargeMassG: 1.5, maxFillPressureMPa: 4.05, volumeMl: 300,
   proofCharge: { massG: 1, heatingValueJPerG: 26454, fillPressureMPa: 3 },
 }
+registerEndpoint('/api/materials', () => ({ rows: [], total: 0, page: 1, pageSize: 200 }))
+beforeEach(() => {
+  freshStores()
+  useSettingsStore().settings = { labName: 'Test lab', policy: DEFAULT_POLICY, updatedAt: null }
+})
 
 function mountRow() {
-  const draft = ref<ChargeDraft>({ ...blankDraft(vessel.id, 3), materialName: benzoic.name })
+  const editor = usePlanEditorStore()
+  editor.begin('plan-1', vessel.id, 3)
+  editor.vessels = [vessel]
+  editor.remember(benzoic)
+  editor.draft.materialName = benzoic.name
   const saves = ref(0)
   const Host = defineComponent({
-    setup: () => () => h(PlanEntryRow, {
-      'vessels': [vessel], 'materials': [benzoic], 'policy': DEFAULT_POLICY, 'editingSeq': null, 'busy': false, 'fieldErrors': {}, 'planFill': 3,
-      'modelValue': draft.value, 'onUpdate:modelValue': (d: ChargeDraft) => { draft.value = d }, 'onSave': () => { saves.value++ },
-    }),
+    setup: () => () => h(PlanEntryRow, { busy: false, fieldErrors: {}, planFill: 3, onSave: () => { saves.value++ } }),
   })
-  return { draft, saves, mount: () => mountSuspended(Host) }
+  return { draft: computed(() => editor.draft), saves, mount: () => mountSuspended(Host) }
 }
 
 describe('PlanEntryRow', () => {

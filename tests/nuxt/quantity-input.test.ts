@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest'
 import { defineComponent, h, ref } from 'vue'
 import QuantityInput from '~/components/quantity/QuantityInput.vue'
 
-function host(kind: 'mass' | 'pressure' | 'specificEnergy', unit: string, start: number | null = null) {
+function host(kind: 'mass' | 'pressure' | 'specificEnergy' | 'energy', unit: string, start: number | null = null) {
   const value = ref<number | null>(start)
   const Host = defineComponent({ setup: () => () => h(QuantityInput, { 'kind': kind, unit, 'modelValue': value.value, 'onUpdate:modelValue': (v: number | null) => { value.value = v }, 'data-testid': 'q' }) })
   return { value, mount: () => mountSuspended(Host) }
@@ -59,5 +59,32 @@ describe('QuantityInput', () => {
     await expect.poll(() => h.value.value).toBe(0.5)
     h.value.value = 0.75
     await expect.poll(() => (w.find('[data-testid="q"]').element as HTMLInputElement).value).toBe('0.75')
+  })
+
+  it('keeps a field in its own unit: "6318 cal/g" in an MJ/kg field, "33 kJ" in a kJ field (NIST SP 811, App. B: cal_IT = 4.1868 J)', async () => {
+    const he = host('specificEnergy', 'MJ/kg')
+    const w = await he.mount()
+    await type(w, '6318 cal/g')
+    // 6318 × 4.1868 J/g = 26 452.2 J/g = 26.4522 MJ/kg.
+    await expect.poll(() => he.value.value).toBeCloseTo(26.4522, 4)
+    expect(w.find('[data-testid="quantity-reading"]').text()).toBe('= 26.4522 MJ/kg')
+    await type(w, '30 g')
+    await expect.poll(() => w.find('[data-testid="quantity-reading"]').text()).toMatch(/not an energy per mass/)
+    expect(he.value.value).toBeNull()
+
+    const hk = host('energy', 'kJ')
+    const k = await hk.mount()
+    await type(k, '33000 J')
+    await expect.poll(() => hk.value.value).toBeCloseTo(33, 9)
+    expect(k.find('[data-testid="quantity-reading"]').text()).toBe('= 33 kJ')
+  })
+
+  it('labels the international-table calorie "cal_IT/g" in what it read, so it cannot be taken for cal_th/g', async () => {
+    const h = host('specificEnergy', 'cal/g')
+    const w = await h.mount()
+    await type(w, '26.454 MJ/kg')
+    // 26 454 J/g ÷ 4.1868 J/cal_IT = 6318.43 cal_IT/g (NIST SP 811, App. B).
+    await expect.poll(() => h.value.value).toBeCloseTo(6318.43, 2)
+    expect(w.find('[data-testid="quantity-reading"]').text()).toBe('= 6318.43 cal_IT/g')
   })
 })

@@ -1,6 +1,6 @@
 // Quantities typed as people say them, read into the API's units.
 import { describe, expect, it } from 'vitest'
-import { normaliseNumberText, parseColumnCell, parseQuantity, parseQuantityCell } from '#shared/domain/quantity'
+import { inUnit, normaliseNumberText, parseColumnCell, parseQuantity, parseQuantityCell } from '#shared/domain/quantity'
 
 const value = (text: string, kind: Parameters<typeof parseQuantity>[1]) => {
   const p = parseQuantity(text, kind)
@@ -79,5 +79,16 @@ describe('parseColumnCell', () => {
     expect(parseColumnCell('3,5', 'C')).toBe(3.5)
     expect(parseColumnCell('30 g', 'fill_pressure_mpa')).toBeInstanceOf(Error)
     expect(parseColumnCell('lots', 'ash')).toBeInstanceOf(Error)
+  })
+})
+
+describe('inUnit', () => {
+  it('gives a field kept in another unit of its kind its own figure (SI prefixes and calories, NIST SP 811)', () => {
+    expect(inUnit(33000, 'energy', 'kJ')).toBeCloseTo(33, 12)
+    expect(inUnit(0.95, 'mass', 'mg')).toBeCloseTo(950, 9)
+    expect(inUnit(300, 'volume', 'L')).toBeCloseTo(0.3, 12)
+    // 26 454 J/g ÷ 4.1868 J/cal_IT = 6318.43 cal_IT/g (NIST SP 811, Appendix B).
+    expect(inUnit(26454, 'specificEnergy', 'cal/g')).toBeCloseTo(6318.43, 2)
+    expect(inUnit(26454, 'specificEnergy', 'cal_th/g')).toBeCloseTo(26454 / 4.184, 6)
   })
 })
