@@ -25,7 +25,7 @@ export default defineEventHandler(async (event) => {
         const run = await findRunOr404(tx, f.runId, true)
         const change: Partial<typeof schema.runs.$inferInsert> = { dayPlanId: plan!.id, dayOrder: f.order, updatedAt: new Date() }
         if (run.vesselId !== vd.vesselId) {
-          const { assessment, chargeHash } = await assessRun(tx, { vessel: view, fillPressureMPa: run.fillPressureMPa, components: run.components as never, kind: run.kind }, policy)
+          const { assessment, chargeHash } = await assessRun(tx, { vessel: view, fillPressureMPa: run.fillPressureMPa, components: run.components, kind: run.kind }, policy)
           Object.assign(change, { vesselId: vd.vesselId, assessment, verdict: assessment.verdict, chargeHash, ...(run.status === 'draft' ? {} : { status: statusForVerdict(assessment.verdict) }) })
         }
         await tx.update(schema.runs).set(change).where(eq(schema.runs.id, run.id))

@@ -27,5 +27,5 @@ export default defineEventHandler(async (event) => {
     return row!
   })
   setResponseStatus(event, 201)
-  return { id: report.id, reportNumber: report.reportNumber, sampleCode: report.sampleCode, issuedAt: report.issuedAt, resultIds: report.resultIds as string[], download: `/api/reports/${report.id}/certificate.pdf` }
+  return { id: report.id, reportNumber: report.reportNumber, sampleCode: report.sampleCode, issuedAt: report.issuedAt, resultIds: report.resultIds, download: `/api/reports/${report.id}/certificate.pdf` }
 })

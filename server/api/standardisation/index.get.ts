@@ -11,7 +11,7 @@ export default defineEventHandler(async (event) => {
     db.select({ id: schema.results.id, vesselId: schema.results.vesselId, kind: schema.results.kind }).from(schema.results)
       .where(eq(schema.results.current, true)),
   ])
-  const accepted = new Set(energies.flatMap(e => e.resultIds as string[]))
+  const accepted = new Set(energies.flatMap(e => e.resultIds))
   return vessels.filter(v => v.condition !== 'retired').map((v) => {
     const active = energies.filter(e => e.vesselId === v.id && e.active).sort((a, b) => b.acceptedAt.getTime() - a.acceptedAt.getTime())[0]
     return {

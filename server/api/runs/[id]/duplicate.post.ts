@@ -1,4 +1,4 @@
-import type { RunInput } from '#shared/schemas/plans'
+
 
 // A duplicate determination: the same sample and charge as a new run at the end of the plan, re-assessed now.
 export default defineEventHandler(async (event) => {
@@ -10,7 +10,7 @@ export default defineEventHandler(async (event) => {
     await findPlanOr404(tx, src.planId, true)
     await assertPlanRoom(tx, src.planId, 1, policy, 'runs')
     const vessel = vesselView(await findVesselOr404(tx, src.vesselId), policy)
-    const components = src.components as RunInput['components']
+    const components = src.components
     await refuseCheckRunWithoutEnergyEquivalent(tx, src.kind, vessel)
     const { assessment, chargeHash } = await assessRun(tx, { vessel, fillPressureMPa: src.fillPressureMPa, components, kind: src.kind }, policy)
     const [row] = await insertNumberedRuns(tx, src.planId, [{
