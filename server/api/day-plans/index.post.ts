@@ -5,7 +5,7 @@ import { dayPlanAcceptSchema } from '#shared/schemas/day-plans'
 // takes its vessel and order; a run moved to another vessel is assessed again there (its signature, if any, no longer
 // covers the charge and a new one is needed where the verdict asks for it).
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst')
+  await requireRole(event)
   const input = await parseBody(event, dayPlanAcceptSchema)
   if (!Object.values(input.assignment).flat().length) invalidInput([{ path: 'assignment', message: 'place at least one run on a vessel' }])
   const policy = await getPolicy()

@@ -5,7 +5,7 @@ const query = z.object({ sampleCode: z.preprocess(v => (v === '' ? undefined : v
 
 // Issued certificates, newest first, optionally for one sample.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst', 'supervisor')
+  await requireRole(event)
   const { sampleCode } = parseQuery(event, query)
   const r = schema.reports
   const rows = await useDb().select({ id: r.id, reportNumber: r.reportNumber, sampleCode: r.sampleCode, issuedAt: r.issuedAt, resultIds: r.resultIds, issuedByName: schema.users.name })

@@ -3,7 +3,7 @@ import { asc, desc, eq } from 'drizzle-orm'
 
 // One result with every revision of its run, the firing, its sample's duplicate agreement and the sample's certificates.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst', 'supervisor')
+  await requireRole(event)
   const { id } = parseParams(event, resultIdParam)
   const db = useDb()
   const row = await findResultOr404(db, id)

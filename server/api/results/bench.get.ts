@@ -7,7 +7,7 @@ const FIRED_WINDOW_DAYS = 30
 
 // The analyst's bench: every vessel with its state and accepted ε, the runs waiting to be fired and the recent firings with their results.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst', 'supervisor')
+  await requireRole(event)
   const db = useDb()
   const policy = await getPolicy()
   const now = new Date()

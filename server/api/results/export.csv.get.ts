@@ -3,7 +3,7 @@ import { desc } from 'drizzle-orm'
 // The results list as a spreadsheet-safe CSV (same filters as GET /api/results), values in J/g as computed; the
 // columns and their units are in server/utils/results-csv.ts.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst', 'supervisor')
+  await requireRole(event)
   const q = parseQuery(event, resultListQuery)
   const db = useDb()
   const rows = await db.select().from(schema.results).where(resultListWhere(q)).orderBy(desc(schema.results.createdAt)).limit(q.limit)

@@ -6,7 +6,7 @@ import { runActRefusal, withHandler } from '#shared/domain/run-lifecycle'
 // and the editor joins those who may not sign it.
 
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'analyst')
+  const user = await requireRole(event)
   const { id } = parseParams(event, idParam)
   const input = await parseBody(event, runPatchSchema)
   const policy = await getPolicy()

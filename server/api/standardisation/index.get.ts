@@ -2,7 +2,7 @@ import { asc, eq } from 'drizzle-orm'
 
 // Standardisation at a glance: each vessel with its accepted ε and the standardisation runs not yet in an accepted series.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst', 'supervisor')
+  await requireRole(event)
   const db = useDb()
   const policy = await getPolicy()
   const [vessels, energies, results] = await Promise.all([

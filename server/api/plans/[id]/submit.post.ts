@@ -5,7 +5,7 @@ import { RUN_TRANSITIONS, withHandler } from '#shared/domain/run-lifecycle'
 // Submitting re-assesses every draft run against its vessel as it stands now and routes it by verdict:
 // clear → ready, needs approval → awaiting a supervisor's signature, blocked → only edit or withdraw.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'analyst')
+  const user = await requireRole(event)
   const { id } = parseParams(event, idParam)
   const policy = await getPolicy()
   const result = await useDb().transaction(async (tx) => {

@@ -3,7 +3,7 @@ import { eq } from 'drizzle-orm'
 
 // The certificate as a PDF attachment, rendered from the content frozen when the report number was issued.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst', 'supervisor')
+  await requireRole(event)
   const { id } = parseParams(event, idParam)
   const [row] = await useDb().select().from(schema.reports).where(eq(schema.reports.id, id))
   if (!row) throw createError({ statusCode: 404, message: 'No such report.' })

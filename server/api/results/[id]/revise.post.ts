@@ -2,7 +2,7 @@ import { and, eq } from 'drizzle-orm'
 
 // A result changes only through a new revision with a reason (audited); the old revision stays, no longer current.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'analyst', 'supervisor')
+  const user = await requireRole(event)
   const { id } = parseParams(event, resultIdParam)
   const { reason, ...inputs } = await parseBody(event, resultReviseSchema)
   const policy = await getPolicy()

@@ -2,7 +2,7 @@
 
 // A duplicate determination: the same sample and charge as a new run at the end of the plan, re-assessed now.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'analyst')
+  const user = await requireRole(event)
   const { id } = parseParams(event, idParam)
   const policy = await getPolicy()
   const run = await useDb().transaction(async (tx) => {

@@ -5,7 +5,7 @@ import { dutyConflict } from '#shared/domain/run-lifecycle'
 
 // A supervisor accepts a standardisation series (signed): its mean ε becomes the vessel's active energy equivalent.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'supervisor')
+  const user = await requireRole(event)
   const { id } = parseParams(event, vesselIdParam)
   const input = await parseBody(event, acceptSeriesSchema)
   const db = useDb()
