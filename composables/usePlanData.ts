@@ -27,5 +27,5 @@ export interface MaterialOption {
 
 /** The whole materials library for pickers (names and the values a charge needs; no derived figures). */
 export function useMaterialOptions() {
-  return useFetch<{ rows: MaterialOption[] }>('/api/materials', { key: 'materials:options', query: { pageSize: 200, derived: '0' }, default: () => ({ rows: [] }) })
+  return useFetch('/api/materials', { key: 'materials:options', query: { pageSize: 200, derived: '0' }, default: () => ({ rows: [] }) })
 }
