@@ -1,8 +1,10 @@
 // Reference data shipped with Emberline. Each value names where it comes from; "typical" entries are
 // ranges for planning only (the upper end is used, so a check errs on the safe side) and never results.
+import type { MaterialCategory } from '../shared/schemas/materials'
+
 export interface SeedMaterial {
   name: string
-  category: string
+  category: MaterialCategory
   heatingValueJPerG?: number
   heatingValueUncertaintyJPerG?: number
   heatingValueSource?: string

@@ -14,7 +14,7 @@ import { assess, resolveComponents, type ChargeComponentInput } from '../shared/
 import { DEFAULT_POLICY, labPolicySchema } from '../shared/domain/policy'
 import { computeResultValues, mean, seriesStatistics } from '../shared/domain/results'
 import type { ResultInputs } from '../shared/schemas/results'
-import { computeVesselState, type VesselCondition } from '../shared/domain/vessel-state'
+import { computeVesselState } from '../shared/domain/vessel-state'
 import { componentFromMaterial } from '../shared/material-component'
 import type { RunComponent } from '../shared/schemas/plans'
 
@@ -100,8 +100,8 @@ async function seedPlan(tx: Tx, name: string, spec: typeof PLAN[string], policy:
     if (!material) throw new Error(`material ${r.material} is missing: run scripts/seed.ts first`)
     const components: RunComponent[] = [{ role: 'sample', materialId: material.id, massG: r.massG }, FUSE]
     const charge: ChargeComponentInput[] = [componentFromMaterial(material, { massG: r.massG }, 'sample'), { role: 'fuse', wire: 'nichrome', lengthCm: 10 }]
-    const state = computeVesselState({ ...vessel, condition: vessel.condition as VesselCondition, now: new Date(), dueMarginPct: policy.serviceDueMarginPct })
-    const vesselInput = { name: vessel.name, class: vessel.class as 'standard', ratedEnergyJ: vessel.ratedEnergyJ, maxChargeMassG: vessel.maxChargeMassG, maxFillPressureMPa: vessel.maxFillPressureMPa, volumeMl: vessel.volumeMl, proofCharge: { massG: vessel.proofChargeMassG, heatingValueJPerG: vessel.proofChargeHeatingValueJPerG, fillPressureMPa: vessel.proofChargeFillPressureMPa }, state: state.state }
+    const state = computeVesselState({ ...vessel, now: new Date(), dueMarginPct: policy.serviceDueMarginPct })
+    const vesselInput = { name: vessel.name, class: vessel.class, ratedEnergyJ: vessel.ratedEnergyJ, maxChargeMassG: vessel.maxChargeMassG, maxFillPressureMPa: vessel.maxFillPressureMPa, volumeMl: vessel.volumeMl, proofCharge: { massG: vessel.proofChargeMassG, heatingValueJPerG: vessel.proofChargeHeatingValueJPerG, fillPressureMPa: vessel.proofChargeFillPressureMPa }, state: state.state }
     const assessment = await assess({ vessel: vesselInput, fillPressureMPa: fill, components: charge, runRole: r.kind }, policy)
     if (assessment.verdict !== 'clear') throw new Error(`demo run ${r.sampleCode} is ${assessment.verdict}: ${assessment.findings.map(f => f.message).join(' ')}`)
     const firedAt = new Date(Date.now() - r.hoursAgo * HOUR)
@@ -120,7 +120,7 @@ async function seedPlan(tx: Tx, name: string, spec: typeof PLAN[string], policy:
       firingsTotal: sql`${schema.vessels.firingsTotal} + 1`,
       updatedAt: new Date(),
     }).where(eq(schema.vessels.id, vessel.id)).returning()
-    const answer = { id: firingId, runId: run!.id, vesselId: vessel.id, sampleCode: r.sampleCode, kind: r.kind, outcome: 'complete', weighedMassG: r.massG, aidMassG: null, observations: '', firedAt: firedAt.toISOString(), firedBy: analyst, run: { id: run!.id, status: 'fired' }, lockedOut: false, message: 'Firing recorded (demo data).', vessel: { id: vessel.id, name: vessel.name, firingsSinceService: counted!.firingsSinceService, firingsSinceRequalification: counted!.firingsSinceRequalification, firingsTotal: counted!.firingsTotal } }
+    const answer = { id: firingId, runId: run!.id, vesselId: vessel.id, sampleCode: r.sampleCode, kind: r.kind, outcome: 'complete' as const, weighedMassG: r.massG, aidMassG: null, observations: '', firedAt: firedAt.toISOString(), firedBy: analyst, run: { id: run!.id, status: 'fired' as const }, lockedOut: false, message: 'Firing recorded (demo data).', vessel: { id: vessel.id, name: vessel.name, state: state.state, condition: vessel.condition, conditionReason: vessel.conditionReason, stateReasons: state.reasons, blocksAllFirings: state.blocksAllFirings, blocksSampleRuns: state.blocksSampleRuns, firingsSinceService: counted!.firingsSinceService, firingsSinceRequalification: counted!.firingsSinceRequalification, firingsTotal: counted!.firingsTotal } }
     await tx.insert(schema.firings).values({
       id: firingId, runId: run!.id, vesselId: vessel.id, idempotencyKey: `seed-bench:${r.sampleCode}:${i}:${plan!.id}`, outcome: 'complete', weighedMassG: r.massG,
       data: { requestHash: 'seed-bench', aidMassG: null, observations: '', components, plannedComponents: components, verdictAtFiring: assessment.verdict, findingsAtFiring: assessment.findings.map(f => f.code) },

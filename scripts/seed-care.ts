@@ -11,6 +11,7 @@ import { createStorage } from 'unstorage'
 import fsDriver from 'unstorage/drivers/fs'
 import * as schema from '../server/database/schema'
 import { DEFAULT_POLICY } from '../shared/domain/policy'
+import type { ServiceKind } from '../shared/schemas/services'
 
 const url = process.env.NUXT_DATABASE_URL
 if (!url) throw new Error('NUXT_DATABASE_URL is not set')
@@ -108,7 +109,7 @@ const [tech] = await db.select().from(schema.users).where(eq(schema.users.email,
 if (!tech) throw new Error('run scripts/seed.ts first: the demo technician is missing')
 const vessel = async (prefix: string) => (await db.select().from(schema.vessels).where(like(schema.vessels.name, `${prefix} %`)))[0]
 
-async function addRecord(v: VesselRow | undefined, seedKey: string, kind: string, performedAt: Date | null, record: Record<string, unknown>, opts: { createdAt?: Date, files?: SeedFile[] } = {}) {
+async function addRecord(v: VesselRow | undefined, seedKey: string, kind: ServiceKind, performedAt: Date | null, record: Record<string, unknown>, opts: { createdAt?: Date, files?: SeedFile[] } = {}) {
   if (!v || !performedAt) return console.log(`skipped ${seedKey}: vessel or date missing`)
   const createdAt = opts.createdAt ?? new Date(performedAt.getTime() + 2 * HOUR)
   const added = await db.transaction(async (tx) => {

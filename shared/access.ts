@@ -1,7 +1,8 @@
 // Who may open which page and call which route: one map read by the page middleware, the navigation and the
 // route-matrix test. 'public' = no session needed; 'all' = any signed-in role. Every route file must appear in
-// API_ACCESS (the route-matrix test walks server/api and fails on a missing one); the server's own checks
-// (requireRole in each route) must agree with it, which the same test proves by calling every route as every role.
+// API_ACCESS (the route-matrix test walks server/api and fails on a missing one); the server reads its roles from here
+// (`requireRole(event)` in each route looks up the matched route), which the same test proves by calling every route
+// as every role.
 import type { Role } from './types/roles'
 
 export type Who = 'public' | 'all' | Role[]

@@ -4,7 +4,7 @@ import { runDutyConflict } from '#shared/domain/run-lifecycle'
 // The approvals queue: each waiting run with its findings, the numbers behind them, the analyst's note and, for a
 // run sent back at the firing, why it needs a new signature.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'supervisor')
+  const user = await requireRole(event)
   const db = useDb()
   const rows = await db.select({ run: schema.runs, planName: schema.plans.name, plannerName: schema.users.name, vesselName: schema.vessels.name, vesselClass: schema.vessels.class })
     .from(schema.runs)

@@ -1,3 +1,4 @@
+import type { RunStatus } from '#shared/schemas/plans'
 import { runDutyConflict } from '#shared/domain/run-lifecycle'
 import { asc, count, desc, eq } from 'drizzle-orm'
 
@@ -17,7 +18,7 @@ export default defineEventHandler(async (event) => {
   const planned = await plannedServiceDates(db, views, now)
   const vessels = views.map(view => ({ ...view, forecast: { ...serviceForecast(view, recent.get(view.id) ?? 0, now), dayPlans: planned.get(view.id) ?? null } }))
 
-  const runList = (status: string, order: 'oldest' | 'plan') => db.select({
+  const runList = (status: RunStatus, order: 'oldest' | 'plan') => db.select({
     id: schema.runs.id, planId: schema.runs.planId, seq: schema.runs.seq, sampleCode: schema.runs.sampleCode, kind: schema.runs.kind,
     status: schema.runs.status, verdict: schema.runs.verdict, fillPressureMPa: schema.runs.fillPressureMPa, updatedAt: schema.runs.updatedAt,
     plannedBy: schema.runs.plannedBy, editedBy: schema.runs.editedBy, submittedBy: schema.runs.submittedBy, planName: schema.plans.name, plannerName: schema.users.name, vesselId: schema.runs.vesselId, vesselName: schema.vessels.name,
@@ -28,7 +29,7 @@ export default defineEventHandler(async (event) => {
     .where(eq(schema.runs.status, status))
     .orderBy(...(order === 'oldest' ? [asc(schema.runs.updatedAt)] : [desc(schema.plans.createdAt), asc(schema.runs.seq)]))
     .limit(QUEUE_ROWS)
-  const runCount = async (status: string) => (await db.select({ n: count() }).from(schema.runs).where(eq(schema.runs.status, status)))[0]?.n ?? 0
+  const runCount = async (status: RunStatus) => (await db.select({ n: count() }).from(schema.runs).where(eq(schema.runs.status, status)))[0]?.n ?? 0
   type QueueRun = Awaited<ReturnType<typeof runList>>[number] & { ownRun: boolean }
 
   const queues: {

@@ -30,7 +30,7 @@ export async function aidValueFor(db: Db | Tx, materialId: string | null): Promi
   if (own) return asAidValue(own)
   const [m] = await db.select().from(schema.materials).where(eq(schema.materials.id, materialId))
   if (!m || m.heatingValueJPerG === null) return null
-  const range = m.typicalRange as { minJPerG?: number, maxJPerG?: number } | null
+  const range = m.typicalRange
   if (range?.minJPerG !== undefined && range.maxJPerG !== undefined) {
     return { ...typicalRangeValue(range.minJPerG, range.maxJPerG), source: 'typical', label: `${m.name}, typical range ${range.minJPerG}–${range.maxJPerG} J/g` }
   }

@@ -1,12 +1,13 @@
 import type { H3Event } from 'h3'
+import type { AuditValues } from '#shared/types/stored'
 import type { Tx } from './db'
 
 export interface AuditEntry {
   action: string
   entity: string
   entityId?: string | null
-  oldValues?: unknown
-  newValues?: unknown
+  oldValues?: AuditValues | null
+  newValues?: AuditValues | null
   reason?: string | null
   actor?: { id: string, name: string } | null
 }

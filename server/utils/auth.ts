@@ -1,5 +1,6 @@
 import type { H3Event } from 'h3'
 import { eq, sql } from 'drizzle-orm'
+import { allows, API_ACCESS, type Who } from '#shared/access'
 import type { Role } from '#shared/types/roles'
 
 export interface AuthedUser {
@@ -85,11 +86,24 @@ export async function requireUser(event: H3Event): Promise<AuthedUser> {
   return user
 }
 
-/** 401 without a session; 403 unless the user holds one of the roles. */
+/** The API_ACCESS key of the route a request matched, as the route files are named: "POST /api/runs/[id]/approve". */
+export function routeKey(event: H3Event): string | null {
+  const path = event.context.matchedRoute?.path
+  const method = event.method === 'HEAD' ? 'GET' : event.method
+  return path ? `${method} ${path.replace(/:(\w+)/g, '[$1]')}` : null
+}
+
+/**
+ * 401 without a session; 403 unless the user holds one of the roles. Without roles, the roles are those shared/access.ts
+ * lists for the route (API_ACCESS, the same map the pages and the route-matrix test read); a route missing there is
+ * refused (fail closed).
+ */
 export async function requireRole(event: H3Event, ...roles: Role[]): Promise<AuthedUser> {
   const user = await requireUser(event)
-  if (!roles.some(r => user.roles.includes(r))) {
-    throw createError({ statusCode: 403, message: `This needs the ${roles.join(' or ')} role.` })
+  const who: Who | undefined = roles.length ? roles : API_ACCESS[routeKey(event) ?? '']
+  if (!who) throw createError({ statusCode: 500, message: `${routeKey(event) ?? event.path} is missing from the access map (shared/access.ts).` })
+  if (!allows(who, user.roles)) {
+    throw createError({ statusCode: 403, message: `This needs the ${(who as Role[]).join(' or ')} role.` })
   }
   return user
 }

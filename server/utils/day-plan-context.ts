@@ -6,7 +6,7 @@ import { assessCharge, chargeInputSchema, resolveComponents } from '#shared/doma
 import type { ChargeInput } from '#shared/domain/assessment'
 import type { AssessOn, DaySettings, PlanRun, PlanVessel } from '#shared/domain/day-plan'
 import type { LabPolicy } from '#shared/domain/policy'
-import type { RunComponent } from '#shared/schemas/plans'
+
 
 const DAY_MS = 86_400_000
 export const OPEN_FOR_DAY_PLAN = ['draft', 'ready', 'awaiting-approval'] as const
@@ -25,7 +25,7 @@ export async function plannedFirings(db: Db | Tx, fromDay: string) {
     .where(and(inArray(schema.runs.dayPlanId, plans.map(p => p.id)), notInArray(schema.runs.status, ['fired', 'withdrawn', 'rejected']))).groupBy(schema.runs.dayPlanId, schema.runs.vesselId)
   const out: { day: string, vesselId: string, firings: number }[] = []
   for (const p of plans) {
-    const proposal = p.proposal as { vessels: { vesselId: string, firings: { runId: string | null }[] }[] }
+    const proposal = p.proposal
     for (const v of proposal.vessels) {
       const checks = v.firings.filter(f => f.runId === null).length
       const runs = open.find(o => o.dayPlanId === p.id && o.vesselId === v.vesselId)?.n ?? 0
@@ -79,7 +79,7 @@ export async function loadDayContext(db: Db | Tx, day: string, vesselIds: string
     const key = JSON.stringify([o.run.components, o.run.fillPressureMPa, o.run.kind])
     if (charges.has(key)) continue
     try {
-      const components = await buildCharge(db, o.run.components as RunComponent[])
+      const components = await buildCharge(db, o.run.components)
       const anyVessel = assessmentVessel(views.values().next().value!)
       const parsed = chargeInputSchema.parse({ vessel: anyVessel, fillPressureMPa: o.run.fillPressureMPa, components, runRole: o.run.kind })
       // The schema drops `library`: the material's own record is attached again, as the run page's assessment does.

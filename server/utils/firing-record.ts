@@ -1,11 +1,10 @@
 // Recording a firing: idempotent by key, the weighed charge held against what was signed, counted by the database.
 import { randomUUID } from 'node:crypto'
 import { eq, sql } from 'drizzle-orm'
-import type { Assessment, Finding } from '#shared/domain/assessment'
+import type { Finding } from '#shared/domain/assessment'
 import { runActRefusal, withHandler } from '#shared/domain/run-lifecycle'
 import { findingChanges, massExcess, sampleMassG } from '#shared/domain/signed-charge'
 import { firingEffect, lockOutReason, OUTCOME_LABELS } from '#shared/domain/vessel-lifecycle'
-import type { RunComponent } from '#shared/schemas/plans'
 import type { FiringAnswer, FiringBody } from './firing'
 import type { Act } from './refusal'
 
@@ -62,13 +61,13 @@ export async function recordFiring(act: Act, id: string, key: string, body: Firi
       vesselRefusal(planned, run.kind)
 
       // The weighed charge is assessed as the planned one was, and held against the charge as signed.
-      const weighed = weighedCharge(run.components as RunComponent[], body)
+      const weighed = weighedCharge(run.components, body)
       const { assessment, chargeHash } = await assessRun(tx, { vessel: planned, fillPressureMPa: run.fillPressureMPa, components: weighed.components, kind: run.kind }, policy)
       const signatures = (await signaturesFor(tx, [id])).get(id) ?? []
       const signed = signatures.some(s => s.meaning === APPROVED && s.boundHash === run.chargeHash)
       const tolerance = policy.signedMassTolerancePct
-      const fresh = findingChanges(run.assessment as Assessment, assessment, tolerance, signed)
-      const mass = massExcess(sampleMassG(run.components as RunComponent[]), body.weighedMassG, tolerance)
+      const fresh = findingChanges(run.assessment, assessment, tolerance, signed)
+      const mass = massExcess(sampleMassG(run.components), body.weighedMassG, tolerance)
       // A heavier charge than signed needs a new signature only while it still needs one at all.
       const beyondSignature = signed && mass.exceeded && assessment.verdict !== 'clear'
       if (fresh.blocks.length || fresh.approvals.length || beyondSignature) {
@@ -95,14 +94,7 @@ export async function recordFiring(act: Act, id: string, key: string, body: Firi
         const plan = await findPlanOr404(tx, run.planId)
         await enqueueMail(tx, {
           to: await recipientsWithRole(tx, 'supervisor'),
-          subject: `Signature needed again: run ${run.sampleCode} in plan "${plan.name}"`,
-          text: [
-            `${user.name} weighed the charge of run #${run.seq} (${run.sampleCode}) for firing. The signature given no longer covers it:`,
-            '',
-            ...why.map(w => `  • ${w}`),
-            '',
-            `The run is back in Approvals (${siteLink('/approvals')}). It may be fired only after you sign the exception again.`,
-          ].join('\n'),
+          ...signatureNeededAgainMail({ by: user.name, planName: plan.name, seq: run.seq, sampleCode: run.sampleCode, why }),
           dedupeKey: `run-reapproval:${id}:${chargeHash}`,
         })
         return { kind: 'refused', status, statusReason, findings: fresh.approvals, message: `${changed}: a supervisor's signature is needed again before it is fired — ${why.join(' ')} The run is back awaiting approval and the supervisors have been told; nothing was fired or counted.` }
@@ -179,16 +171,7 @@ export async function recordFiring(act: Act, id: string, key: string, body: Firi
         const to = [...await recipientsWithRole(tx, 'supervisor'), ...await recipientsWithRole(tx, 'technician')]
         await enqueueMail(tx, {
           to,
-          subject: `Vessel ${after.name} locked out: ${body.outcome} on firing of ${run.sampleCode}`,
-          text: [
-            `${user.name} recorded a ${body.outcome === 'leak' ? 'leak' : 'an overpressure event'} on the firing of ${run.sampleCode} (run #${run.seq}) in vessel ${after.name} (serial ${counted!.serialNumber}).`,
-            body.observations ? `Observations: ${body.observations}` : 'No observations were written.',
-            '',
-            `Emberline has locked the vessel out: no run can be fired in it until it has been requalified and returned to service.`,
-            'Depressurise and open the vessel only as your procedures describe; keep it out of use and tagged.',
-            `The vessel in Emberline: ${siteLink(`/vessels/${run.vesselId}`)}`,
-            'Local regulations, the vessel maker\'s instructions and the lab\'s own procedures come first.',
-          ].join('\n'),
+          ...lockOutMail({ by: user.name, outcome: body.outcome, sampleCode: run.sampleCode, seq: run.seq, vesselId: run.vesselId, vesselName: after.name, serialNumber: counted!.serialNumber, observations: body.observations }),
           dedupeKey: `firing-lock-out:${firingId}`,
         })
       }

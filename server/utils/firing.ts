@@ -68,12 +68,12 @@ export async function firingReplay(db: Db | Tx, userId: string, key: string, req
   const [row] = await db.select({ answer: schema.firings.answer, data: schema.firings.data }).from(schema.firings)
     .where(and(eq(schema.firings.firedBy, userId), eq(schema.firings.idempotencyKey, key)))
   if (!row) return null
-  if ((row.data as { requestHash?: string }).requestHash !== requestHash) {
+  if (row.data.requestHash !== requestHash) {
     throw new Refusal('invalid', 'This Idempotency-Key was already used for a different firing request; use a new key for a new firing.', {
       fields: [{ path: 'Idempotency-Key', message: 'already used for a different request' }],
     })
   }
-  return row.answer as FiringAnswer
+  return row.answer
 }
 
 const fmtG = (g: number | undefined) => (g === undefined ? '—' : `${g.toFixed(4)} g`)

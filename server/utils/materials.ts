@@ -3,7 +3,6 @@ import { z } from 'zod'
 import { assessCharge, resolveComponents, ChargeInputError } from '#shared/domain/assessment'
 import { heatingValueFromComposition } from '#shared/domain/heating-value'
 import { componentFromMaterial } from '#shared/material-component'
-import type { Composition } from '#shared/domain/composition'
 import type { LabPolicy } from '#shared/domain/policy'
 import type { materials } from '../database/schema'
 
@@ -54,8 +53,8 @@ export function materialView(m: MaterialRow) {
     heatingValueJPerG: m.heatingValueJPerG,
     heatingValueUncertaintyJPerG: m.heatingValueUncertaintyJPerG,
     heatingValueSource: m.heatingValueSource,
-    typicalRange: m.typicalRange as { minJPerG: number, maxJPerG: number, note?: string } | null,
-    composition: m.composition as Composition | null,
+    typicalRange: m.typicalRange,
+    composition: m.composition,
     compositionBasis: m.compositionBasis,
     formula: m.formula,
     smiles: m.smiles,

@@ -47,7 +47,7 @@ function ensureListener(): Promise<boolean> {
 
 async function readLabSettings(): Promise<LabSettings> {
   const [row] = await useDb().select().from(schema.labSettings).where(eq(schema.labSettings.id, 1))
-  const merged = labPolicySchema.safeParse({ ...DEFAULT_POLICY, ...(row?.policy as object | null) })
+  const merged = labPolicySchema.safeParse({ ...DEFAULT_POLICY, ...row?.policy })
   if (!merged.success) console.error('[policy] stored policy is invalid; the defaults are in force:', merged.error.message)
   return {
     labName: row?.labName ?? 'Emberline laboratory',

@@ -2,7 +2,6 @@
 // and supervisors get one e-mail — once per change, however many workers or app instances look at the same time.
 import type { H3Event } from 'h3'
 import { and, asc, eq, inArray, sql } from 'drizzle-orm'
-import { VESSEL_STATE_LABELS, vesselFiringWords } from '#shared/labels'
 import type { LabPolicy } from '#shared/domain/policy'
 import type { VesselState } from '#shared/domain/vessel-state'
 import type { VesselRow } from './vessels'
@@ -12,13 +11,6 @@ export const REMINDER_STATES: ReadonlySet<VesselState> = new Set(['service-due',
 
 /** The pg-boss queue the fleet check runs on. */
 export const FLEET_CHECK_QUEUE = 'emberline-fleet-check'
-
-const WHAT_TO_DO: Partial<Record<VesselState, string>> = {
-  'service-due': 'Plan the routine seal service: every seal renewed together, the valve seat renewed, then a leak test under water and the electrode resistance check.',
-  'overdue': 'Record the routine seal service in Emberline (every seal renewed, leak test, electrode check); until then no run may be fired in the vessel.',
-  'requalification-due': 'Send the vessel for requalification (hydrostatic or proof test and dimensional inspection) before any further firing.',
-  'locked-out': 'Do not fill or fire the vessel. It returns to service only with a signed return-to-service record after a passing requalification (or, for a failed leak test or electrode check, a routine service that passes both).',
-}
 
 /** The start of the episode a state belongs to, so a repeat of the same state in the same episode is never mailed twice. */
 function episodeStart(v: VesselRow, state: VesselState): Date {
@@ -30,28 +22,6 @@ function episodeStart(v: VesselRow, state: VesselState): Date {
 /** The outbox key of a reminder: `vessel:<id>:<state>:<since>`. */
 export function reminderKey(v: VesselRow, state: VesselState): string {
   return `vessel:${v.id}:${state}:${episodeStart(v, state).toISOString()}`
-}
-
-function reminderText(v: VesselRow, view: ReturnType<typeof vesselView>): string {
-  const n = (x: number) => x.toLocaleString('en-GB')
-  const lines = [
-    `${v.name} (serial ${v.serialNumber}${v.location ? `, ${v.location}` : ''}) is now: ${VESSEL_STATE_LABELS[view.state]}.`,
-    '',
-    ...view.stateReasons.map(r => `- ${r}`),
-    ...(v.conditionReason ? [`- Recorded: ${v.conditionReason}`] : []),
-    '',
-    `Firings since the last routine service: ${n(v.firingsSinceService)} of ${n(v.serviceIntervalFirings)}.`,
-    `Firings since the last requalification: ${n(v.firingsSinceRequalification)} of ${n(v.requalificationIntervalFirings)}.`,
-    `Routine service due by ${view.serviceDueAt.toISOString().slice(0, 10)} (${view.daysUntilService >= 0 ? `in ${n(view.daysUntilService)} days` : `${n(-view.daysUntilService)} days ago`}).`,
-    '',
-    ...(vesselFiringWords(view) ? [`${vesselFiringWords(view)}.`] : []),
-    `What to do: ${WHAT_TO_DO[view.state] ?? ''}`,
-    `Open the vessel in Emberline: ${siteLink(`/vessels/${v.id}`)}`,
-    '',
-    'Combustion vessels hold oxygen under pressure. Local regulations, the vessel maker\'s instructions and the lab\'s own procedures come first.',
-    'Emberline sends this once for this change of state.',
-  ]
-  return lines.join('\n')
 }
 
 export interface TransitionResult { vesselId: string, name: string, from: string | null, to: VesselState, claimed: boolean, mailed: boolean, dedupeKey: string | null }
@@ -71,7 +41,7 @@ export async function notifyVesselTransition(tx: Tx, event: Pick<H3Event, 'conte
   if (view.state === 'locked-out' && await lockedOutByFiring(tx, v)) return result
   const to = [...new Set([...await recipientsWithRole(tx, 'technician'), ...await recipientsWithRole(tx, 'supervisor')])]
   result.dedupeKey = reminderKey(v, view.state)
-  result.mailed = await enqueueMail(tx, { to, subject: `${v.name}: ${VESSEL_STATE_LABELS[view.state]}`, text: reminderText(v, view), dedupeKey: result.dedupeKey })
+  result.mailed = await enqueueMail(tx, { to, ...vesselReminderMail(v, view), dedupeKey: result.dedupeKey })
   if (result.mailed) {
     await audit(tx, event, { action: 'vessel.reminder', entity: 'vessel', entityId: v.id, oldValues: { notifiedState: v.notifiedState }, newValues: { state: view.state, to, dedupeKey: result.dedupeKey } })
   }

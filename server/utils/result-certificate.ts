@@ -2,7 +2,6 @@
 import { and, asc, desc, eq } from 'drizzle-orm'
 import { ACID_CONVENTION_TEXT } from '../../shared/domain/results'
 import type { Basis, ByBasis } from '../../shared/domain/results'
-import type { RunComponent } from '../../shared/schemas/plans'
 import type { CertificateContent, CertificateRow } from './certificate'
 
 const round = (v: number, d: number) => Math.round(v * 10 ** d) / 10 ** d
@@ -32,7 +31,7 @@ export async function certificateContent(db: Db | Tx, sampleCode: string, issuer
   }
   const views = await loadResultViews(db, rows)
   const run = await findRunOr404(db, rows[0]!.runId)
-  const sample = (run.components as RunComponent[]).find(c => c.role === 'sample')
+  const sample = run.components.find(c => c.role === 'sample')
   let description = sample?.name ?? null
   if (sample?.materialId) {
     const [m] = await db.select({ name: schema.materials.name }).from(schema.materials).where(eq(schema.materials.id, sample.materialId))

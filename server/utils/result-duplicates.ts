@@ -53,7 +53,7 @@ function scaled(values: ResultValues[], pick: (v: NonNullable<ResultValues['expa
 /** Agreement of the current sample determinations of one sample code (ISO 1928 r, via assessDuplicates); never averaged blindly. */
 export function duplicateSummary(sampleCode: string, rows: ResultRow[], policy: LabPolicy): DuplicateSummary {
   const current = rows.filter(r => r.current && r.kind === 'sample' && r.sampleCode === sampleCode)
-  const values = current.map(r => r.values as ResultValues)
+  const values = current.map(r => r.values)
   const a = assessDuplicates(values.map(v => v.grossJPerG['air-dried']!), { repeatabilityLimit: policy.repeatabilityJPerG })
   // A single determination is reported only where the lab's policy allows it.
   const how = a.status === 'accepted' ? 'mean' : a.status === 'median-flagged' ? 'median' : a.n === 1 && policy.singleDeterminationCertificates ? 'mean' : null
@@ -96,7 +96,7 @@ export async function labRepeatability(db: Db | Tx) {
     .where(and(eq(schema.results.current, true), eq(schema.results.kind, 'sample'))).orderBy(desc(schema.results.createdAt)).limit(500)
   const groups = new Map<string, number[]>()
   for (const r of rows) {
-    const v = (r.values as ResultValues).grossJPerG?.['air-dried']
+    const v = r.values.grossJPerG?.['air-dried']
     if (typeof v === 'number') groups.set(r.sampleCode, [...(groups.get(r.sampleCode) ?? []), v])
   }
   return pooledStandardDeviation([...groups.values()])

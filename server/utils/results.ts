@@ -10,7 +10,6 @@ import { computeResultValues, ResultInputError, resultContextFrom } from '../../
 import type { ResultContextParts } from '../../shared/domain/results'
 import type * as domain from '../../shared/domain/results'
 import * as inputSchemas from '../../shared/schemas/results'
-import type { RunComponent } from '../../shared/schemas/plans'
 import { checkRunEffect } from '../../shared/domain/vessel-lifecycle'
 
 export type ResultRow = typeof schema.results.$inferSelect
@@ -69,7 +68,7 @@ export async function resultContextParts(db: Db | Tx, run: RunRow, energyEquival
   if (firing.outcome !== 'complete') {
     throw createError({ statusCode: 409, message: `The firing of ${run.sampleCode} was recorded as "${firing.outcome}": it gives no valid result. Fire a duplicate of the run.` })
   }
-  const weighed = ((firing.data as { components?: RunComponent[] }).components ?? run.components) as RunComponent[]
+  const weighed = firing.data.components ?? run.components
   const charge = await buildCharge(db, weighed)
   let components: ResultContext['components']
   try {
@@ -140,7 +139,7 @@ export async function applyCheckOutcome(tx: Tx, event: Parameters<typeof audit>[
 type SignatureRow = typeof schema.signatures.$inferSelect
 
 export function resultView(r: ResultRow, extra: { vesselName?: string, createdByName?: string, firedAt?: Date | null, firedBy?: string | null, firedByName?: string | null, signature?: SignatureRow | null } = {}) {
-  const values = r.values as ResultValues
+  const values = r.values
   return {
     id: r.id,
     runId: r.runId,
@@ -152,7 +151,7 @@ export function resultView(r: ResultRow, extra: { vesselName?: string, createdBy
     revision: r.revision,
     supersedesId: r.supersedesId,
     current: r.current,
-    inputs: r.inputs as ResultInputs,
+    inputs: r.inputs,
     values,
     energyEquivalentId: r.energyEquivalentId,
     status: r.status as 'unsigned' | 'signed',

@@ -2,7 +2,6 @@
 // Records are never edited: a correction is a new record pointing to the one it corrects.
 import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm'
 import { correctionEffect, serviceEffect } from '#shared/domain/vessel-lifecycle'
-import type { LockCause } from '#shared/domain/vessel-lifecycle'
 import type { ServiceInput, ServiceKind } from '#shared/schemas/services'
 import type { services } from '../database/schema'
 import type { Act } from './refusal'
@@ -53,10 +52,10 @@ export async function returnToServiceCheck(tx: Tx, vessel: VesselRow): Promise<{
     .from(s).where(and(eq(s.vesselId, vessel.id), sql`${s.createdAt} >= ${vessel.conditionSince}`)).orderBy(asc(s.createdAt))
   const superseded = new Set(rows.map(r => r.correctsId).filter(Boolean))
   const current = rows.filter(r => !superseded.has(r.id))
-  const cause = (current.find(r => r.atLock)?.record as { effect?: { lockCause?: LockCause } } | undefined)?.effect?.lockCause ?? null
+  const cause = current.find(r => r.atLock)?.record.effect?.lockCause ?? null
   const after = current.filter(r => !r.atLock)
-  if (after.some(r => r.kind === 'requalification' && (r.record as { passed?: boolean }).passed)) return { ok: true, why: '' }
-  if (cause === 'service-check' && after.some(r => r.kind === 'routine' && (r.record as { effect?: { checksPassed?: boolean } }).effect?.checksPassed)) {
+  if (after.some(r => r.kind === 'requalification' && r.record.passed)) return { ok: true, why: '' }
+  if (cause === 'service-check' && after.some(r => r.kind === 'routine' && r.record.effect?.checksPassed)) {
     return { ok: true, why: '' }
   }
   return {
@@ -176,7 +175,7 @@ function pickVesselState(v: VesselRow) {
 }
 
 export function serviceView(s: ServiceRow, files: AttachmentRow[], correctedById: string | null) {
-  const record = s.record as Record<string, unknown> & { effect?: { message?: string, condition?: string, lockCause?: LockCause | null, checksPassed?: boolean } }
+  const record = s.record
   return {
     id: s.id,
     vesselId: s.vesselId,

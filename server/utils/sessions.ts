@@ -3,10 +3,8 @@
 // wherever the cookie was copied to.
 import type { H3Event } from 'h3'
 import { and, eq, isNull, ne } from 'drizzle-orm'
+import type { SessionEndReason } from '#shared/states'
 import type { AuthedUser } from './auth'
-
-export type SessionEndReason = 'sign-out' | 'expired' | 'password-change' | 'password-reset' | 'role-change'
-  | 'disabled' | 'ended-by-user' | 'ended-by-admin'
 
 /** The client address as the throttle and the session list see it: X-Forwarded-For only behind a trusted proxy. */
 export function clientAddress(event: H3Event): string {

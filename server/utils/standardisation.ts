@@ -21,7 +21,7 @@ export function energyEquivalentView(e: EnergyEquivalentRow, acceptedByName?: st
     standardDeviationJPerK: e.standardDeviationJPerK,
     relativeStandardDeviationPct: e.relativeStandardDeviationPct,
     runs: e.runs,
-    resultIds: e.resultIds as string[],
+    resultIds: e.resultIds,
     meanEnergyJ: e.meanEnergyJ,
     acceptedBy: e.acceptedBy,
     acceptedByName: acceptedByName ?? null,
@@ -108,6 +108,6 @@ export async function standardisationDetail(db: Db | Tx, vesselId: string, polic
 }
 
 /** Binds the acceptance signature to the results and their ε values. */
-export function seriesHash(results: { id: string, revision: number, values: unknown }[]): string {
-  return createHash('sha256').update(JSON.stringify(results.map(r => [r.id, r.revision, (r.values as ResultValues).energyEquivalentJPerK]))).digest('hex')
+export function seriesHash(results: { id: string, revision: number, values: Pick<ResultValues, 'energyEquivalentJPerK'> }[]): string {
+  return createHash('sha256').update(JSON.stringify(results.map(r => [r.id, r.revision, r.values.energyEquivalentJPerK]))).digest('hex')
 }

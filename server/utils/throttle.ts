@@ -10,6 +10,7 @@
 // - one address, any accounts: 50 failures within 15 minutes refuse that address.
 import type { H3Event } from 'h3'
 import { eq, sql } from 'drizzle-orm'
+import type { PasswordCheckPurpose } from '#shared/states'
 
 export const THROTTLE = {
   windowMs: 15 * 60_000,
@@ -22,7 +23,7 @@ export const THROTTLE = {
   addressLimit: 50,
 } as const
 
-export type PasswordPurpose = 'sign-in' | 'signature'
+export type PasswordPurpose = PasswordCheckPurpose
 
 export class ThrottledError extends Error {
   constructor(public retryAfterS: number, public rule: 'back-off' | 'account-and-address' | 'account' | 'address') {

@@ -1,6 +1,7 @@
 // Elemental composition of a component (mass-%), its checks, its bases, and its derivation from a formula.
 
-export type CompositionBasis = 'dry' | 'as-received' | 'air-dried'
+export const COMPOSITION_BASES = ['dry', 'as-received', 'air-dried'] as const
+export type CompositionBasis = typeof COMPOSITION_BASES[number]
 
 /**
  * Mass-% of the component. On the 'as-received' and 'air-dried' bases (the default is 'as-received')

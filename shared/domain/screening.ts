@@ -36,7 +36,8 @@ export const EXPLOSOPHORE_GROUPS = {
 
 export type ExplosophoreGroup = keyof typeof EXPLOSOPHORE_GROUPS
 
-export type DeclaredHazard = 'none' | 'energetic' | 'oxidiser'
+export const DECLARED_HAZARDS = ['none', 'energetic', 'oxidiser'] as const
+export type DeclaredHazard = typeof DECLARED_HAZARDS[number]
 
 /** Strictness of a declared hazard: a run may raise it, never lower it. */
 export const HAZARD_RANK: Readonly<Record<DeclaredHazard, number>> = { none: 0, oxidiser: 1, energetic: 2 }

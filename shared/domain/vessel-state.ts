@@ -2,17 +2,14 @@
 // Intervals are common practice (manufacturers' service guidance), not a published standard: routine seal service every
 // 500 firings or six months, whichever comes first; requalification after 5,000 firings (ASTM E144 describes the tests).
 
-export type VesselCondition = 'normal' | 'locked-out' | 'away' | 'awaiting-verification' | 'retired'
+/** What people record about a vessel; the state is computed from it and the counters. */
+export const VESSEL_CONDITIONS = ['normal', 'locked-out', 'away', 'awaiting-verification', 'retired'] as const
+export type VesselCondition = typeof VESSEL_CONDITIONS[number]
 
-export type VesselState =
-  | 'in-service'
-  | 'service-due'
-  | 'overdue'
-  | 'requalification-due'
-  | 'locked-out'
-  | 'away'
-  | 'awaiting-verification'
-  | 'retired'
+export const VESSEL_STATES = [
+  'in-service', 'service-due', 'overdue', 'requalification-due', 'locked-out', 'away', 'awaiting-verification', 'retired',
+] as const
+export type VesselState = typeof VESSEL_STATES[number]
 
 /** Routine service interval in firings — common practice (manufacturers' service guidance). */
 export const DEFAULT_SERVICE_INTERVAL_FIRINGS = 500

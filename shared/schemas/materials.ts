@@ -1,11 +1,13 @@
 import { z } from 'zod'
 import { compositionProblems } from '../domain/composition'
 import { chemicalText } from '../domain/assessment/schema'
-import type { CompositionBasis } from '../domain/composition'
+import { COMPOSITION_BASES, type CompositionBasis } from '../domain/composition'
+import { DECLARED_HAZARDS } from '../domain/screening'
 
 export const MATERIAL_CATEGORIES = [
   'coal', 'coke', 'biomass', 'liquid fuel', 'waste fuel', 'food', 'feed', 'polymer', 'reference standard', 'combustion aid', 'chemical', 'other',
 ] as const
+export type MaterialCategory = typeof MATERIAL_CATEGORIES[number]
 
 const pct = z.number().min(0).max(100)
 export const materialCompositionSchema = z.object({
@@ -29,10 +31,10 @@ const fields = {
   typicalRange: z.object({ minJPerG: z.number().positive().max(200_000), maxJPerG: z.number().positive().max(200_000), note: z.string().max(300).optional() }).strict()
     .refine(r => r.minJPerG <= r.maxJPerG, { message: 'minimum above maximum' }).nullable().optional(),
   composition: materialCompositionSchema.nullable().optional(),
-  compositionBasis: z.enum(['dry', 'as-received', 'air-dried']).nullable().optional(),
+  compositionBasis: z.enum(COMPOSITION_BASES).nullable().optional(),
   formula: chemicalText('formula', 200).nullable().optional(),
   smiles: chemicalText('structure', 2000).nullable().optional(),
-  declaredHazard: z.enum(['none', 'energetic', 'oxidiser']).default('none'),
+  declaredHazard: z.enum(DECLARED_HAZARDS).default('none'),
   decompositionEnergyJPerG: z.number().min(0).max(100_000).nullable().optional(),
   decompositionOnsetC: z.number().min(-50).max(1500).nullable().optional(),
   decompositionMethod: z.string().trim().min(3).max(300).nullable().optional(),

@@ -1,5 +1,7 @@
 import { z } from 'zod'
 import { chemicalText } from '../domain/assessment/schema'
+import { COMPOSITION_BASES } from '../domain/composition'
+import { DECLARED_HAZARDS } from '../domain/screening'
 
 export const RUN_KINDS = ['sample', 'standardisation', 'check'] as const
 export const RUN_STATUSES = ['draft', 'ready', 'awaiting-approval', 'blocked', 'rejected', 'fired', 'withdrawn'] as const
@@ -19,9 +21,9 @@ export const runComponentSchema = z.object({
   smiles: chemicalText('structure', 2000).optional(),
   composition: z.object({
     C: pct.optional(), H: pct.optional(), N: pct.optional(), S: pct.optional(), O: pct.optional(), Cl: pct.optional(), ash: pct.optional(), moisture: pct.optional(),
-    basis: z.enum(['dry', 'as-received', 'air-dried']).optional(),
+    basis: z.enum(COMPOSITION_BASES).optional(),
   }).strict().optional(),
-  declaredHazard: z.enum(['none', 'energetic', 'oxidiser']).optional(),
+  declaredHazard: z.enum(DECLARED_HAZARDS).optional(),
   decompositionEnergyJPerG: z.number().min(0).max(100_000).optional(),
   category: z.string().trim().max(40).optional(),
   boilingPointC: z.number().min(-273).max(2000).optional(),

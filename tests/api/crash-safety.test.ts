@@ -1,7 +1,7 @@
 import { spawnSync } from 'node:child_process'
 import { randomUUID } from 'node:crypto'
 import { fileURLToPath } from 'node:url'
-import { afterAll, describe, expect, it } from 'vitest'
+import { afterAll, describe, expect, it, vi } from 'vitest'
 import { as, DEMO_PASSWORD, sessionCookie, unique } from '../support/api'
 import { testDb } from '../support/db'
 import { newPlan, newVessel } from '../support/factories'
@@ -36,13 +36,11 @@ function reconcileReport() {
   return JSON.parse(res.stdout) as { vessels: { id: string, mismatches: unknown[], checks: { recorded: number, expected: number }[] }[] }
 }
 
-async function until(probe: () => Promise<boolean>, timeoutMs: number) {
-  const deadline = Date.now() + timeoutMs
-  while (Date.now() < deadline) {
-    if (await probe()) return true
-    await new Promise(r => setTimeout(r, 5))
-  }
-  return false
+/** True once the probe holds, false if it never did within the time (polled closely: the kill must land mid-write). */
+function until(probe: () => Promise<boolean>, timeoutMs: number): Promise<boolean> {
+  return vi.waitFor(async () => {
+    if (!await probe()) throw new Error('not yet')
+  }, { timeout: timeoutMs, interval: 5 }).then(() => true, () => false)
 }
 
 describe('crash safety', () => {

@@ -2,7 +2,7 @@
 // TCP proxy written here, so the test can cut the line without owning the PostgreSQL cluster: while it is cut every
 // API request answers a clean 503, a write is never half-applied, and the server recovers by itself once it returns.
 import net from 'node:net'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest'
 import { unique } from '../support/api'
 import { testDb } from '../support/db'
 import { startServer, type ServerProcess } from '../support/server-process'
@@ -105,14 +105,12 @@ describe('database outage', () => {
   }
 
   /** Retries until the server answers 200 again: the pool must replace its dead connections by itself. */
-  async function recovered(path = '/api/vessels') {
-    const deadline = Date.now() + 30_000
-    for (;;) {
+  function recovered(path = '/api/vessels') {
+    return vi.waitFor(async () => {
       const res = await request('GET', path)
-      if (res.status === 200) return res
-      if (Date.now() > deadline) throw new Error(`no recovery: ${res.status} ${res.text}`)
-      await new Promise(r => setTimeout(r, 250))
-    }
+      if (res.status !== 200) throw new Error(`no recovery: ${res.status} ${res.text}`)
+      return res
+    }, { timeout: 30_000, interval: 250 })
   }
 
   const vesselBody = () => ({ name: unique('Outage'), serialNumber: unique('SN'), class: 'standard', ratedEnergyJ: 33000, maxChargeMassG: 1.5, maxFillPressureMPa: 4.05, volumeMl: 300 })

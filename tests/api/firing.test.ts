@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest'
 import { as, call, unique } from '../support/api'
 import { auditRows, testDb } from '../support/db'
 import { benzoicAcidId, fire, plannedRuns, readyRuns, registerVessel, standardisedVessel, vessel } from '../unit/bench/bench-api'
+import { waitUntil } from '../support/wait'
 
 // POST /api/runs/:id/firing (every recorded firing adds one to each counter in the same
 // transaction; two firings at the same instant both count). Runs: 1.0000 g of a sample declared at 26 454 J/g
@@ -13,16 +14,6 @@ const counters = (v: { firingsSinceService: number, firingsSinceRequalification:
 async function firingCount(vesselId: string) {
   const { rows } = await testDb().query('select count(*)::int as n from firings where vessel_id = $1', [vesselId])
   return rows[0].n as number
-}
-
-async function waitFor<T>(what: string, probe: () => Promise<T | null | undefined>, timeoutMs = 20_000): Promise<T> {
-  const deadline = Date.now() + timeoutMs
-  for (;;) {
-    const value = await probe()
-    if (value) return value
-    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`)
-    await new Promise(r => setTimeout(r, 250))
-  }
 }
 
 describe('recording a firing', () => {
@@ -193,7 +184,7 @@ describe('a leak or an overpressure locks the vessel out', () => {
     expect(await firingCount(v.id)).toBe(1)
 
     const subject = `Vessel ${v.name} locked out: leak on firing of ${leaky!.sampleCode}`
-    const mails = await waitFor('the lock-out mail', async () => {
+    const mails = await waitUntil('the lock-out mail', async () => {
       const { rows } = await testDb().query('select * from captured_mail where subject = $1', [subject])
       return rows.length ? rows : null
     })

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { as, call, unique } from '../support/api'
 import { testDb } from '../support/db'
+import { waitUntil } from '../support/wait'
 
 // The mail worker of the server under test sends the outbox to the test mail server (scripts/test.sh:
 // port 2526), which stores what it receives in captured_mail. No route enqueues mail yet, so the
@@ -15,16 +16,6 @@ async function enqueue(row: { to: string[], subject: string, text?: string, dedu
   return rows[0]?.id as string | undefined
 }
 
-async function waitFor<T>(what: string, probe: () => Promise<T | null | undefined>, timeoutMs = 20_000): Promise<T> {
-  const deadline = Date.now() + timeoutMs
-  for (;;) {
-    const value = await probe()
-    if (value) return value
-    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`)
-    await new Promise(r => setTimeout(r, 250))
-  }
-}
-
 const outboxRow = async (id: string) => (await testDb().query('select * from mail_outbox where id = $1', [id])).rows[0]
 const captured = async (subject: string) => (await testDb().query('select * from captured_mail where subject = $1', [subject])).rows
 
@@ -32,11 +23,11 @@ describe('mail worker (outbox → SMTP → test mail server)', () => {
   it('sends a queued message to every recipient and marks it sent', async () => {
     const subject = unique('Approval needed')
     const id = (await enqueue({ to: ['supervisor@emberline.test', 'admin@emberline.test'], subject, text: 'Run 7 waits for your signature.' }))!
-    const [mail] = await waitFor('the captured message', async () => { const r = await captured(subject); return r.length ? r : null })
+    const [mail] = await waitUntil('the captured message', async () => { const r = await captured(subject); return r.length ? r : null })
     expect(mail.to).toEqual(['supervisor@emberline.test', 'admin@emberline.test'])
     expect(mail.from).toContain('no-reply@emberline.test')
     expect(mail.text).toBe('Run 7 waits for your signature.')
-    const row = await waitFor('the outbox row to be sent', async () => { const r = await outboxRow(id); return r.status === 'sent' ? r : null })
+    const row = await waitUntil('the outbox row to be sent', async () => { const r = await outboxRow(id); return r.status === 'sent' ? r : null })
     expect(row.attempts).toBe(1)
     expect(row.sent_at).toBeInstanceOf(Date)
     expect(row.last_error).toBeNull()
@@ -44,7 +35,7 @@ describe('mail worker (outbox → SMTP → test mail server)', () => {
 
   it('keeps a refused message for a later try, with the error and a backoff of about 30 s', async () => {
     const id = (await enqueue({ to: ['nobody@refused.invalid'], subject: unique('Refused') }))!
-    const row = await waitFor('the first failed try', async () => { const r = await outboxRow(id); return r.last_error ? r : null })
+    const row = await waitUntil('the first failed try', async () => { const r = await outboxRow(id); return r.last_error ? r : null })
     expect(row.status).toBe('pending')
     expect(row.attempts).toBe(1)
     expect(row.last_error).toMatch(/550/)
@@ -56,7 +47,7 @@ describe('mail worker (outbox → SMTP → test mail server)', () => {
   it('marks a message failed after its 8th try', async () => {
     const subject = unique('Last try')
     const id = (await enqueue({ to: ['nobody@refused.invalid'], subject, attempts: 7 }))!
-    const row = await waitFor('the message to fail', async () => { const r = await outboxRow(id); return r.status === 'failed' ? r : null })
+    const row = await waitUntil('the message to fail', async () => { const r = await outboxRow(id); return r.status === 'failed' ? r : null })
     expect(row.attempts).toBe(8)
     expect(row.last_error).toMatch(/refused\.invalid/)
     expect(await captured(subject)).toHaveLength(0)
@@ -70,7 +61,7 @@ describe('mail worker (outbox → SMTP → test mail server)', () => {
     // The database itself holds the key unique, whoever inserts.
     await expect(testDb().query(`insert into mail_outbox ("to", subject, text, dedupe_key) values ('{a@b.test}', 's', 't', $1)`, [key]))
       .rejects.toThrow(/duplicate key/)
-    await waitFor('the captured message', async () => ((await captured(subject)).length ? true : null))
+    await waitUntil('the captured message', async () => ((await captured(subject)).length ? true : null))
     const { rows } = await testDb().query('select count(*)::int as n from mail_outbox where dedupe_key = $1', [key])
     expect(rows[0].n).toBe(1)
     // Another pass must not deliver it again.
@@ -83,7 +74,7 @@ describe('GET /api/admin/mail', () => {
   it('shows the admin the captured messages, newest first, and the outbox with each state', async () => {
     const subject = unique('Shown on the mail page')
     const id = (await enqueue({ to: ['technician@emberline.test'], subject }))!
-    await waitFor('the captured message', async () => ((await captured(subject)).length ? true : null))
+    await waitUntil('the captured message', async () => ((await captured(subject)).length ? true : null))
     const res = await call('GET', '/api/admin/mail?pageSize=100', { cookie: await as('admin') })
     expect(res.status).toBe(200)
     expect(res.body.captured).toMatchObject({ page: 1, pageSize: 100 })

@@ -1,3 +1,5 @@
+import Papa from 'papaparse'
+import { ACID_CONVENTIONS } from '#shared/domain/results/acid'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { as, baseURL, call, signIn, unique } from '../support/api'
 import { auditRows } from '../support/db'
@@ -242,9 +244,16 @@ describe('sign-off, revisions and the certificate', () => {
     const res = await call('GET', '/api/results/export.csv?kind=sample', { cookie: await as('analyst') })
     expect(res.status).toBe(200)
     expect(res.headers.get('content-disposition')).toMatch(/^attachment; filename="emberline-results-\d{8}\.csv"$/)
-    const lines = String(res.body).replace(/^\uFEFF/, '').trim().split('\r\n')
-    expect(lines[0]).toContain('gross_ad_j_per_g')
-    expect(lines.length).toBeGreaterThan(5)
+    const { data: [header, ...rows] } = Papa.parse<string[]>(String(res.body).replace(/^\uFEFF/, '').trim())
+    // Units in the headers; the acid convention, the expanded uncertainty on each basis and the provisional flag.
+    expect(header).toEqual(expect.arrayContaining(['sample_mass (g)', 'gross_ad (J/g)', 'acid_convention', 'U_k2_gross_dry (J/g)', 'U_k2_net_p_ar (J/g)', 'provisional', 'provisional_because']))
+    expect(rows.length).toBeGreaterThan(5)
+    const col = (name: string) => header!.indexOf(name)
+    for (const row of rows) {
+      expect(row).toHaveLength(header!.length)
+      expect(ACID_CONVENTIONS).toContain(row[col('acid_convention')])
+      expect(['true', 'false']).toContain(row[col('provisional')])
+    }
   })
 })
 

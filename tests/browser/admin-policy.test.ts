@@ -2,18 +2,12 @@ import { describe, expect, it } from 'vitest'
 import { unique } from '../support/api'
 import { openPage, shot, signInAs } from '../support/browser'
 import { testDb } from '../support/db'
+import { waitUntil } from '../support/wait'
 
 const FILL_MAX = 'Method fill window, upper end'
 
-async function waitForCapture(subject: string) {
-  const deadline = Date.now() + 20_000
-  while (Date.now() < deadline) {
-    const { rows } = await testDb().query('select 1 from captured_mail where subject = $1', [subject])
-    if (rows.length) return
-    await new Promise(r => setTimeout(r, 250))
-  }
-  throw new Error(`the test mail server did not receive "${subject}"`)
-}
+const waitForCapture = (subject: string) => waitUntil(`the test mail server to receive "${subject}"`, async () =>
+  (await testDb().query('select 1 from captured_mail where subject = $1', [subject])).rows.length > 0)
 
 describe('lab policy, audit trail and mail pages in Chromium', () => {
   it('the admin changes the fill window maximum with a reason, and the audit trail shows it', async () => {

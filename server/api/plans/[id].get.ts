@@ -10,7 +10,7 @@ const query = z.object({
 
 // A plan with its runs in order (one page of them), each with its stored assessment and signatures, and the vessels it uses.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst', 'supervisor')
+  await requireRole(event)
   const { id } = parseParams(event, idParam)
   const { runsOffset, runsLimit } = parseQuery(event, query)
   const db = useDb()

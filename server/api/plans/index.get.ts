@@ -2,7 +2,7 @@ import { desc, eq, sql } from 'drizzle-orm'
 
 // Plans with their run counts by status, newest first.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst', 'supervisor')
+  await requireRole(event)
   const db = useDb()
   const rows = await db.select({
     id: schema.plans.id,

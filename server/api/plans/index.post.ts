@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm'
 import { planCreateSchema } from '#shared/schemas/plans'
 
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'analyst')
+  const user = await requireRole(event)
   const input = await parseBody(event, planCreateSchema)
   const plan = await useDb().transaction(async (tx) => {
     const vessel = await tx.select({ id: schema.vessels.id }).from(schema.vessels).where(eq(schema.vessels.id, input.vesselId))

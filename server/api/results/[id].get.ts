@@ -1,9 +1,9 @@
 import { asc, desc, eq } from 'drizzle-orm'
-import type { RunComponent } from '#shared/schemas/plans'
+
 
 // One result with every revision of its run, the firing, its sample's duplicate agreement and the sample's certificates.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst', 'supervisor')
+  await requireRole(event)
   const { id } = parseParams(event, resultIdParam)
   const db = useDb()
   const row = await findResultOr404(db, id)
@@ -17,7 +17,7 @@ export default defineEventHandler(async (event) => {
   ])
   const revisions = await loadResultViews(db, revisionRows)
   const duplicates = row.kind === 'sample' ? await duplicateSummaries(db, [row.sampleCode], policy) : {}
-  const components = run.components as RunComponent[]
+  const components = run.components
   const aid = components.find(c => c.role === 'aid')
   const fuse = components.find(c => c.role === 'fuse')
   const data = (firing?.f.data ?? {}) as { aidMassG?: number | null, observations?: string }
@@ -34,6 +34,6 @@ export default defineEventHandler(async (event) => {
       ? { id: firing.f.id, outcome: firing.f.outcome, weighedMassG: firing.f.weighedMassG, aidMassG: data.aidMassG ?? null, observations: data.observations ?? '', firedAt: firing.f.firedAt, firedByName: firing.firedByName }
       : null,
     duplicate: duplicates[row.sampleCode] ?? null,
-    reports: reports.map(r => ({ id: r.id, reportNumber: r.reportNumber, issuedAt: r.issuedAt, resultIds: r.resultIds as string[] })),
+    reports: reports.map(r => ({ id: r.id, reportNumber: r.reportNumber, issuedAt: r.issuedAt, resultIds: r.resultIds })),
   }
 })

@@ -1,5 +1,5 @@
 import { and, asc, desc, eq, gte, inArray } from 'drizzle-orm'
-import type { RunComponent } from '#shared/schemas/plans'
+
 
 const DAY_MS = 86_400_000
 /** Fired runs stay on the bench this long (or until their result is in). */
@@ -7,7 +7,7 @@ const FIRED_WINDOW_DAYS = 30
 
 // The analyst's bench: every vessel with its state and accepted ε, the runs waiting to be fired and the recent firings with their results.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst', 'supervisor')
+  await requireRole(event)
   const db = useDb()
   const policy = await getPolicy()
   const now = new Date()
@@ -24,14 +24,14 @@ export default defineEventHandler(async (event) => {
   const resultRows = firedRows.length
     ? await db.select().from(schema.results).where(and(inArray(schema.results.runId, firedRows.map(f => f.run.id)), eq(schema.results.current, true)))
     : []
-  const materialIds = [...new Set([...waiting.map(w => w.run), ...firedRows.map(f => f.run)].flatMap(x => (x.components as RunComponent[]).flatMap(c => (c.materialId ? [c.materialId] : []))))]
+  const materialIds = [...new Set([...waiting.map(w => w.run), ...firedRows.map(f => f.run)].flatMap(x => x.components.flatMap(c => (c.materialId ? [c.materialId] : []))))]
   const materialNames = new Map((materialIds.length ? await db.select({ id: schema.materials.id, name: schema.materials.name }).from(schema.materials).where(inArray(schema.materials.id, materialIds)) : []).map(m => [m.id, m.name]))
   const sigs = await signaturesFor(db, waiting.map(w => w.run.id))
   const duplicates = await duplicateSummaries(db, resultRows.filter(x => x.kind === 'sample').map(x => x.sampleCode), policy)
   const byRun = new Map((await loadResultViews(db, resultRows)).map(v => [v.runId, v]))
 
   const describe = (run: typeof r.$inferSelect) => {
-    const cs = run.components as RunComponent[]
+    const cs = run.components
     const sample = cs.find(c => c.role === 'sample')
     const aid = cs.find(c => c.role === 'aid')
     const fuse = cs.find(c => c.role === 'fuse')
@@ -60,7 +60,7 @@ export default defineEventHandler(async (event) => {
     fired: firedRows.map(({ run, planName, firing, firedByName }) => ({
       id: run.id, planId: run.planId, planName, seq: run.seq, sampleCode: run.sampleCode, kind: run.kind, vesselId: run.vesselId,
       ...describe(run),
-      firing: { id: firing.id, outcome: firing.outcome, weighedMassG: firing.weighedMassG, aidMassG: (firing.data as { aidMassG?: number | null }).aidMassG ?? null, observations: (firing.data as { observations?: string }).observations ?? '', firedAt: firing.firedAt, firedByName },
+      firing: { id: firing.id, outcome: firing.outcome, weighedMassG: firing.weighedMassG, aidMassG: firing.data.aidMassG ?? null, observations: firing.data.observations ?? '', firedAt: firing.firedAt, firedByName },
       result: byRun.get(run.id) ?? null,
     })),
     duplicates,

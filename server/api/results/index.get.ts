@@ -2,7 +2,7 @@ import { desc } from 'drizzle-orm'
 
 // Results, newest first (current revisions unless asked otherwise), with the duplicate agreement of each sample code.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst', 'supervisor')
+  await requireRole(event)
   const q = parseQuery(event, resultListQuery)
   const db = useDb()
   const rows = await db.select().from(schema.results).where(resultListWhere(q)).orderBy(desc(schema.results.createdAt)).limit(q.limit)

@@ -3,7 +3,7 @@ import { join } from 'node:path'
 
 // The thermogram template of the README (data/thermogram-template.csv, read from the folder the server starts in).
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst', 'supervisor')
+  await requireRole(event)
   let text: string
   try {
     text = await readFile(join(process.cwd(), 'data', 'thermogram-template.csv'), 'utf8')

@@ -1,5 +1,5 @@
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst', 'supervisor')
+  await requireRole(event)
   const { id } = parseParams(event, idParam)
   const db = useDb()
   const run = await findRunOr404(db, id)

@@ -3,7 +3,7 @@ import { RATING_FIELDS, vesselPatchSchema } from '#shared/schemas/vessels'
 
 // Ratings and intervals change only with a reason, audited with the values before and after.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'admin')
+  await requireRole(event)
   const { id } = parseParams(event, vesselIdParam)
   const input = await parseBody(event, vesselPatchSchema)
   const policy = await getPolicy()

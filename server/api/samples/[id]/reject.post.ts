@@ -3,7 +3,7 @@ import { sampleRejectSchema } from '#shared/schemas/samples'
 
 // Refusal at receipt (leaking container, too little material, an item the lab may not fire): only a waiting sample.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'analyst', 'supervisor')
+  await requireRole(event)
   const { id } = parseParams(event, idParam)
   const { reason } = await parseBody(event, sampleRejectSchema)
   const row = await useDb().transaction(async (tx) => {

@@ -2,7 +2,7 @@
 // multipart/form-data. Each file is checked from its content and the size limit of the lab policy,
 // stored under a random key, and returned with its id; the record then names the ids (attachmentIds).
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'technician')
+  const user = await requireRole(event)
   const { id } = parseParams(event, vesselIdParam)
   const db = useDb()
   const vessel = await findVesselOr404(db, id)

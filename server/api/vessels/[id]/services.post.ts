@@ -3,7 +3,7 @@ import { serviceInputSchema } from '#shared/schemas/services'
 // A servicing record (technician): signed by re-entering the password, audited, and applied to the
 // vessel in the same transaction (counters, dates, condition). Files are uploaded first and named by id.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, 'technician')
+  const user = await requireRole(event)
   const { id } = parseParams(event, vesselIdParam)
   const input = await parseBody(event, serviceInputSchema)
   // The checklist rules come before the password: a refused record needs no signature.

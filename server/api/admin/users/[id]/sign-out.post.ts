@@ -1,6 +1,6 @@
 // Ends every session the user holds, on every device, at their next request.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, 'admin')
+  await requireRole(event)
   const { id } = parseParams(event, uuidParam)
   await useDb().transaction(async (tx) => {
     await findUserOr404(tx, id)

@@ -1,0 +1,1 @@
+export interface AuditFilters { entity: string, entityId: string, actor: string, action: string, from: string, to: string }

@@ -1,0 +1,13 @@
+
+
+
+
+
+
+
+
+export type ServerCheck =
+  | { kind: 'pending' }
+  | { kind: 'agree' }
+  | { kind: 'differ' }
+  | { kind: 'error', message: string }
