@@ -101,6 +101,8 @@ export const runs = pgTable('runs', {
   index('runs_sample_idx').on(t.sampleId),
   index('runs_status_idx').on(t.status),
   index('runs_vessel_idx').on(t.vesselId),
+  // The plans list counts each plan's runs by status (an index-only scan; docs/benchmarks.md).
+  index('runs_plan_status_idx').on(t.planId, t.status),
   oneOf('runs_kind_check', t.kind, RUN_KINDS),
   oneOf('runs_status_check', t.status, RUN_STATUSES),
   oneOf('runs_verdict_check', t.verdict, VERDICTS),

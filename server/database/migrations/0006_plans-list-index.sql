@@ -1,0 +1,1 @@
+CREATE INDEX "runs_plan_status_idx" ON "runs" USING btree ("plan_id","status");
