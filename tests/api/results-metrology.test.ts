@@ -20,7 +20,7 @@ beforeAll(async () => {
   const s = await standardisedVessel([10_000, 10_000, 10_000, 10_000, 10_000])
   vesselId = s.vessel.id
   ba = await benzoicAcidId()
-  const mats = await call('GET', '/api/materials?pageSize=200&derived=0', { cookie: await as('analyst') })
+  const mats = await call('GET', '/api/materials?q=Gelatin%20capsule&limit=50&derived=0', { cookie: await as('analyst') })
   capsuleId = mats.body.rows.find((m: { name: string }) => m.name === 'Gelatin capsule (combustion aid)').id
   policyBefore = (await call('GET', '/api/settings', { cookie: await as('admin') })).body.policy
 })

@@ -19,7 +19,7 @@ beforeAll(async () => {
   vesselId = (await standardisedVessel([10_000, 10_003, 9_997, 10_001, 9_999])).vessel.id
   ba = await benzoicAcidId()
   const analyst = await as('analyst')
-  const mats = await call('GET', '/api/materials?pageSize=200&derived=0', { cookie: analyst })
+  const mats = await call('GET', '/api/materials?q=Gelatin%20capsule&limit=50&derived=0', { cookie: analyst })
   capsuleId = mats.body.rows.find((m: { name: string }) => m.name === 'Gelatin capsule (combustion aid)').id
   policy = (await call('GET', '/api/settings', { cookie: analyst })).body.policy
 })

@@ -11,7 +11,7 @@ const figure = (text: string) => Number(/([\d,]+(?:\.\d+)?)\s*J\/g/.exec(text)![
 describe('result form preview and the result page', () => {
   it('previews gross and net values with U before saving, stores the same, and flags a typical aid value', async () => {
     const { vessel } = await standardisedVessel([10_000, 10_005, 9_995, 10_002, 9_998]) // ε = 10 000.0 J/K
-    const mats = await call('GET', '/api/materials?pageSize=200&derived=0', { cookie: await as('analyst') })
+    const mats = await call('GET', '/api/materials?q=Gelatin%20capsule&limit=50&derived=0', { cookie: await as('analyst') })
     const capsuleId = mats.body.rows.find((m: { name: string }) => m.name === 'Gelatin capsule (combustion aid)').id
     const code = unique('PVW')
     const [run] = await readyRuns(vessel.id, [{ sampleCode: code, materialId: await benzoicAcidId(), massG: 0.8, aidMassG: 0.1, aidMaterialId: capsuleId }])

@@ -10,7 +10,7 @@ export async function demoVessel(name: string) {
 }
 
 export async function material(namePrefix: string) {
-  const res = await call('GET', `/api/materials?pageSize=200&derived=0`, { cookie: await as('analyst') })
+  const res = await call('GET', `/api/materials?q=${encodeURIComponent(namePrefix)}&limit=50&derived=0`, { cookie: await as('analyst') })
   const m = res.body.rows.find((x: { name: string }) => x.name.startsWith(namePrefix))
   if (!m) throw new Error(`material ${namePrefix} missing`)
   return m

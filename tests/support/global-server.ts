@@ -22,7 +22,7 @@ export default async function setup(project: TestProject) {
   server.stdout.on('data', (d: Buffer) => { output += d.toString() })
   server.stderr.on('data', (d: Buffer) => { output += d.toString() })
   const baseURL = `http://127.0.0.1:${port}`
-  const deadline = Date.now() + 60_000
+  const deadline = Date.now() + 120_000
   for (;;) {
     if (server.exitCode !== null) throw new Error(`server exited:\n${output}`)
     try {

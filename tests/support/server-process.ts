@@ -42,7 +42,7 @@ export async function startServer(env: Record<string, string> = {}): Promise<Ser
       await exited
     }
   }
-  const deadline = Date.now() + 60_000
+  const deadline = Date.now() + 120_000
   for (;;) {
     if (child.exitCode !== null) throw new Error(`server exited:\n${output}`)
     try {

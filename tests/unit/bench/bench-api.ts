@@ -30,7 +30,7 @@ let baId: string | undefined
 /** The library's certified benzoic acid (heating value 26 454 J/g, formula C7H6O2). */
 export async function benzoicAcidId(): Promise<string> {
   if (baId) return baId
-  const res = await call('GET', '/api/materials?pageSize=200&derived=0', { cookie: await as('analyst') })
+  const res = await call('GET', '/api/materials?q=Benzoic%20acid&limit=50&derived=0', { cookie: await as('analyst') })
   baId = res.body.rows.find((m: { name: string }) => m.name === 'Benzoic acid, calorimetric standard').id
   return baId!
 }
