@@ -34,7 +34,7 @@ export const materialIdsOf = (runs: readonly Pick<Run, 'components'>[]) => [...n
  */
 export function useMaterialsNamed(ids: MaybeRefOrGetter<string[]>) {
   const joined = computed(() => [...toValue(ids)].sort().slice(0, 200).join(','))
-  return useFetch<{ rows: MaterialOption[] }>('/api/materials', {
+  return useFetch('/api/materials', {
     key: () => `materials:named:${joined.value}`,
     query: { ids: joined, derived: '0', pageSize: 200 },
     default: () => ({ rows: [] }),

@@ -1,4 +1,5 @@
 import type { VesselState } from '#shared/domain/vessel-state'
+import type { InternalApi } from 'nitropack'
 import type { ResultView } from '~/composables/results/result-view'
 
 // Shapes of GET /api/results/bench (server/api/results/bench.get.ts).
@@ -20,7 +21,8 @@ export interface FiredRun extends RunBits {
   firing: { id: string, outcome: string, weighedMassG: number, aidMassG: number | null, observations: string, firedAt: string, firedByName: string }
   result: ResultView | null
 }
-export interface FiringAnswer { id: string, outcome: string, lockedOut: boolean, message: string, vessel: { name: string, state: VesselState, stateReasons: string[] } }
+/** The firing route's answer, as the client receives it. */
+export type FiringAnswer = InternalApi['/api/runs/:id/firing']['post']
 
 export const OUTCOMES = [
   { value: 'complete', label: 'Complete', hint: 'burnt cleanly: no soot, no unburnt sample' },

@@ -6,6 +6,7 @@ import { z } from 'zod'
 import { FIRING_OUTCOMES } from '#shared/domain/vessel-lifecycle'
 import type { FiringOutcome } from '#shared/domain/vessel-lifecycle'
 import type { RunComponent } from '#shared/schemas/plans'
+import type { VesselState } from '#shared/domain/vessel-state'
 import { Refusal } from './refusal'
 
 
@@ -55,7 +56,7 @@ export interface FiringAnswer {
   firedBy: { id: string, name: string }
   run: { id: string, status: 'fired' }
   vessel: {
-    id: string, name: string, state: string, condition: string, conditionReason: string | null, stateReasons: string[]
+    id: string, name: string, state: VesselState, condition: string, conditionReason: string | null, stateReasons: string[]
     blocksAllFirings: boolean, blocksSampleRuns: boolean
     firingsSinceService: number, firingsSinceRequalification: number, firingsTotal: number
   }

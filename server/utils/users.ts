@@ -1,6 +1,7 @@
 import { and, arrayContains, eq, ne } from 'drizzle-orm'
 import { z } from 'zod'
 import type { users } from '../database/schema'
+import type { Role } from '../../shared/types/roles'
 
 type UserRow = typeof users.$inferSelect
 
@@ -10,7 +11,8 @@ export function publicUser(u: UserRow) {
     id: u.id,
     email: u.email,
     name: u.name,
-    roles: u.roles,
+    // The users_roles_check constraint keeps only known role names in the column.
+    roles: u.roles as Role[],
     active: u.active,
     lastSignInAt: u.lastSignInAt,
     createdAt: u.createdAt,

@@ -41,7 +41,7 @@ export default defineEventHandler(async (event) => {
   const ok = !fileErrors.length && previews.every(p => !p.errors.length)
   if (!commit || !ok) {
     if (commit) setResponseStatus(event, 422)
-    return { ok, committed: false, fileErrors, rows: previews }
+    return { ok, committed: false as const, fileErrors, rows: previews }
   }
 
   const created = await db.transaction(async (tx) => {
@@ -62,5 +62,5 @@ export default defineEventHandler(async (event) => {
     await audit(tx, event, { action: 'plan.import', entity: 'plan', entityId: id, newValues: { runs: ids.length, runIds: ids } })
     return ids
   })
-  return { ok: true, committed: true, created: created.length, fileErrors: [], rows: previews }
+  return { ok: true, committed: true as const, created: created.length, fileErrors: [], rows: previews }
 })
