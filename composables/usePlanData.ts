@@ -1,4 +1,4 @@
-import type { Assessment } from '#shared/domain/assessment'
+import type { Assessment, AssessmentSummary } from '#shared/domain/assessment'
 import type { RunComponent, RunStatus } from '#shared/schemas/plans'
 import type { VesselState } from '#shared/domain/vessel-state'
 
@@ -11,7 +11,7 @@ export interface VesselSummary {
 export interface Signature { id: string, signerName: string, meaning: string, reason: string, signedAt: string, current: boolean }
 export interface Run {
   id: string, planId: string, seq: number, sampleCode: string, kind: 'sample' | 'standardisation' | 'check', vesselId: string, fillPressureMPa: number
-  components: RunComponent[], status: RunStatus, verdict: Assessment['verdict'], assessment: Assessment, chargeHash: string, note: string
+  components: RunComponent[], status: RunStatus, verdict: Assessment['verdict'], assessment: AssessmentSummary, chargeHash: string, note: string
   plannedBy: string, editedBy: string[], submittedBy: string[], statusReason: string | null, signatures: Signature[]
 }
 export interface PlanDetail {

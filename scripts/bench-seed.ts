@@ -55,7 +55,7 @@ async function main() {
     select r.id, r.vessel_id, 'load-' || r.id, 'complete', 0.8, '{"observations": ""}'::jsonb, '{}'::jsonb, $1, r.created_at + (r.seq || ' minutes')::interval
     from runs r join plans p on p.id = r.plan_id where p.name like 'Load plan %'`, [analyst.id])
   await step('materials', `insert into materials (name, category, heating_value_j_per_g, heating_value_source, declared_hazard, notes)
-    select 'Load material ' || lpad(g::text, 5, '0'), (array['coal', 'biomass', 'oil', 'waste', 'food'])[g % 5 + 1], 15000 + (g % 300) * 100,
+    select 'Load material ' || lpad(g::text, 5, '0'), (array['coal', 'biomass', 'liquid fuel', 'waste fuel', 'food'])[g % 5 + 1], 15000 + (g % 300) * 100,
       'declared by the client (load data)', 'none', ''
     from generate_series(1, 20000) g`)
   await step('audit rows', `insert into audit_log (at, actor_id, actor_name, action, entity, entity_id, new_values, request_id)

@@ -209,13 +209,16 @@ async function readyRuns(admin: string, analyst: string, n: number) {
 }
 
 /** MIXED_USERS concurrent users for MIXED_SECONDS, each cycling through the pages a lab day is made of. */
+/** The plan page's request: a page of 100 runs with the summary of each assessment. */
+const PLAN_PAGE = (planId: string) => `/api/plans/${planId}?runsLimit=100&assessment=summary`
+
 async function mixedLoad(lab: LargeLab, analyst: string, supervisor: string, assessBody: string) {
   const json = { 'content-type': 'application/json' }
   const steps: { cookie: string, path: string, body?: string }[] = [
     { cookie: analyst, path: '/api/fleet' },
     { cookie: analyst, path: `/api/vessels/${lab.vesselId}` },
     { cookie: analyst, path: `/api/vessels/${lab.vesselId}/firings` },
-    { cookie: analyst, path: `/api/plans/${lab.planId}` },
+    { cookie: analyst, path: PLAN_PAGE(lab.planId) },
     { cookie: analyst, path: '/api/assess', body: assessBody },
     { cookie: analyst, path: '/api/materials?pageSize=50' },
     { cookie: supervisor, path: '/api/approvals' },
@@ -309,7 +312,8 @@ async function main() {
     await latency('`GET /api/vessels/:id` (vessel page)', get(`/api/vessels/${lab.vesselId}`)),
     await latency('`GET /api/vessels/:id/services`', get(`/api/vessels/${lab.vesselId}/services`)),
     await latency('`GET /api/vessels/:id/firings` (vessel of 2,000 firings)', get(`/api/vessels/${lab.vesselId}/firings`)),
-    await latency('`GET /api/plans/:id` (plan of 100 runs)', get(`/api/plans/${lab.planId}`)),
+    await latency('`GET /api/plans/:id` (plan of 100 runs, whole assessments)', get(`/api/plans/${lab.planId}`)),
+    await latency('`GET /api/plans/:id?runsLimit=100&assessment=summary` (plan of 100 runs, as the plan page asks)', get(PLAN_PAGE(lab.planId))),
     await latency('`GET /api/approvals` (approvals queue)', get('/api/approvals', supervisor)),
     await latency('`GET /api/audit?actor=…&from=…` (audit search)', get(lab.audit, supervisor)),
     await latency('`POST /api/assess`', () => fetch(`${BASE}/api/assess`, { method: 'POST', headers, body: assessBody })),

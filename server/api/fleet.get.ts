@@ -6,7 +6,7 @@ import { asc, count, desc, eq } from 'drizzle-orm'
 const ATTENTION: Record<string, number> = { 'locked-out': 0, 'overdue': 1, 'requalification-due': 2, 'awaiting-verification': 3, 'service-due': 4, 'away': 5 }
 const QUEUE_ROWS = 20
 
-// Today: every vessel with its state, counters and service forecast, and the queues of the caller's roles.
+// Today: every vessel with its state, counters and service forecast (fleetRow: what the page shows), and the queues of the caller's roles.
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
   const db = useDb()
@@ -16,7 +16,7 @@ export default defineEventHandler(async (event) => {
   const views = rows.map(r => vesselView(r, policy, now))
   // Accepted day plans ahead can bring service sooner than the recent rate says.
   const planned = await plannedServiceDates(db, views, now)
-  const vessels = views.map(view => ({ ...view, forecast: { ...serviceForecast(view, recent.get(view.id) ?? 0, now), dayPlans: planned.get(view.id) ?? null } }))
+  const vessels = views.map(view => fleetRow(view, { ...serviceForecast(view, recent.get(view.id) ?? 0, now), dayPlans: planned.get(view.id) ?? null }))
 
   const runList = (status: RunStatus, order: 'oldest' | 'plan') => db.select({
     id: schema.runs.id, planId: schema.runs.planId, seq: schema.runs.seq, sampleCode: schema.runs.sampleCode, kind: schema.runs.kind,

@@ -1,6 +1,6 @@
 // The fleet at a glance: every vessel's state, its service forecast from the recent firing
 // rate, and the firing history of one vessel. Counts read the firings index within a bounded window only.
-import { and, eq, gte, inArray, sql } from 'drizzle-orm'
+import { and, eq, gt, gte, inArray, lt, sql } from 'drizzle-orm'
 import { forecastServiceDate } from '#shared/domain/vessel-state'
 import type { VesselServiceState } from '#shared/domain/vessel-state'
 import type { VesselView } from './vessels'
@@ -11,15 +11,28 @@ export const FORECAST_WINDOW_DAYS = 28
 export const FIRING_CHART_WEEKS = 26
 const DAY_MS = 86_400_000
 
-/** Firings of each vessel since a date: a range scan of the (vessel_id, fired_at) index, grouped by vessel. */
+/**
+ * Firings of each vessel since a date. Whole UTC days after the first come from the daily tally (vessel_firing_days,
+ * kept by triggers on firings); only the part of the first day from `since` on is counted in the firings index. On the
+ * large lab this reads about 1,500 tally rows instead of 67,000 index entries (docs/benchmarks.md).
+ */
 export async function firingsSince(db: Db | Tx, vesselIds: string[], since: Date): Promise<Map<string, number>> {
   if (!vesselIds.length) return new Map()
-  // Grouped on the firings table itself: a correlated sub-select rendered the vessel's "id" unqualified, and
-  // PostgreSQL resolved it to the firing's own id, so every vessel counted 0.
   const f = schema.firings
-  const rows = await db.select({ id: f.vesselId, n: sql<number>`count(*)::int` }).from(f)
-    .where(and(inArray(f.vesselId, vesselIds), gte(f.firedAt, since))).groupBy(f.vesselId)
-  return new Map(vesselIds.map(id => [id, Number(rows.find(r => r.id === id)?.n ?? 0)]))
+  const d = schema.vesselFiringDays
+  const firstDay = since.toISOString().slice(0, 10)
+  const nextDayStart = new Date(Date.parse(`${firstDay}T00:00:00Z`) + DAY_MS)
+  // Grouped on the tables themselves: a correlated sub-select rendered the vessel's "id" unqualified, and
+  // PostgreSQL resolved it to the firing's own id, so every vessel counted 0.
+  const [days, partial] = await Promise.all([
+    db.select({ id: d.vesselId, n: sql<number>`sum(${d.firings})::int` }).from(d)
+      .where(and(inArray(d.vesselId, vesselIds), gt(d.day, firstDay))).groupBy(d.vesselId),
+    db.select({ id: f.vesselId, n: sql<number>`count(*)::int` }).from(f)
+      .where(and(inArray(f.vesselId, vesselIds), gte(f.firedAt, since), lt(f.firedAt, nextDayStart))).groupBy(f.vesselId),
+  ])
+  const counts = new Map(vesselIds.map(id => [id, 0]))
+  for (const r of [...days, ...partial]) counts.set(r.id, (counts.get(r.id) ?? 0) + Number(r.n))
+  return counts
 }
 
 export interface ServiceForecast {
@@ -64,13 +77,38 @@ export function weekStartUtc(d: Date): Date {
 /** Firings per week over the last 26 weeks (this week included), zero weeks filled in. */
 export async function weeklyFirings(db: Db | Tx, vesselId: string, now = new Date()) {
   const first = new Date(weekStartUtc(now).getTime() - (FIRING_CHART_WEEKS - 1) * 7 * DAY_MS)
-  const f = schema.firings
-  const week = sql<string>`to_char(date_trunc('week', ${f.firedAt} at time zone 'UTC'), 'YYYY-MM-DD')`
-  const rows = await db.select({ week, n: sql<number>`count(*)::int` }).from(f)
-    .where(and(eq(f.vesselId, vesselId), gte(f.firedAt, first))).groupBy(week)
+  const d = schema.vesselFiringDays
+  // `first` is a Monday 00:00 UTC, so whole days of the tally cover the weeks exactly.
+  const week = sql<string>`to_char(date_trunc('week', ${d.day}), 'YYYY-MM-DD')`
+  const rows = await db.select({ week, n: sql<number>`sum(${d.firings})::int` }).from(d)
+    .where(and(eq(d.vesselId, vesselId), gte(d.day, first.toISOString().slice(0, 10)))).groupBy(week)
   const byWeek = new Map(rows.map(r => [r.week, Number(r.n)]))
   return Array.from({ length: FIRING_CHART_WEEKS }, (_, i) => {
     const weekStart = new Date(first.getTime() + i * 7 * DAY_MS).toISOString().slice(0, 10)
     return { weekStart, firings: byWeek.get(weekStart) ?? 0 }
   })
+}
+
+/**
+ * One vessel as Today shows it: name, state, counters, due date and forecast. The vessel page has the rest (ratings,
+ * proof charge, notes); leaving it out halves the Today answer and its server-rendered payload on a large lab.
+ */
+export function fleetRow(view: VesselView, forecast: ServiceForecast & { dayPlans: { dueAt: Date, plannedFirings: number } | null }) {
+  return {
+    id: view.id,
+    name: view.name,
+    class: view.class,
+    location: view.location,
+    state: view.state,
+    stateReasons: view.stateReasons,
+    conditionReason: view.conditionReason,
+    firingsSinceService: view.firingsSinceService,
+    serviceIntervalFirings: view.serviceIntervalFirings,
+    firingsSinceRequalification: view.firingsSinceRequalification,
+    requalificationIntervalFirings: view.requalificationIntervalFirings,
+    firingsTotal: view.firingsTotal,
+    serviceDueAt: view.serviceDueAt,
+    daysUntilService: view.daysUntilService,
+    forecast,
+  }
 }

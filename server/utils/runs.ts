@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto'
 import { asc, count, eq, inArray, max } from 'drizzle-orm'
 import { z } from 'zod'
 import { assess, chargeInputSchema, ChargeInputError } from '#shared/domain/assessment'
-import type { Assessment, ChargeComponentInput } from '#shared/domain/assessment'
+import type { Assessment, AssessmentSummary, ChargeComponentInput } from '#shared/domain/assessment'
 import type { LabPolicy } from '#shared/domain/policy'
 import { componentFromMaterial } from '#shared/material-component'
 import { runKindProblems } from '#shared/domain/run-lifecycle'
@@ -111,7 +111,8 @@ export async function insertNumberedRuns(tx: Tx, planId: string, values: NewRun[
 
 type SignatureRow = typeof schema.signatures.$inferSelect
 
-export function runView(r: RunRow, signatures: SignatureRow[] = []) {
+/** A run as the API answers it; `assessment` is the stored one, or its summary when the caller selected only that. */
+export function runView<R extends Omit<RunRow, 'assessment'> & { assessment: AssessmentSummary }>(r: R, signatures: SignatureRow[] = []) {
   return {
     id: r.id,
     planId: r.planId,
@@ -123,7 +124,7 @@ export function runView(r: RunRow, signatures: SignatureRow[] = []) {
     components: r.components,
     status: r.status as RunStatus,
     verdict: r.verdict,
-    assessment: r.assessment,
+    assessment: r.assessment as R['assessment'],
     chargeHash: r.chargeHash,
     note: r.note,
     plannedBy: r.plannedBy,

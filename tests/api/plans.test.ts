@@ -33,6 +33,25 @@ describe('plans and runs', () => {
     expect(await auditRows({ action: 'run.create', entityId: clear.body.id })).toHaveLength(1)
   })
 
+  it('answers a summary of each assessment for the plan page, equal to the stored one apart from the detail', async () => {
+    const cookie = await as('analyst')
+    const full = await call('GET', `/api/plans/${plan.id}`, { cookie })
+    const summary = await call('GET', `/api/plans/${plan.id}?assessment=summary`, { cookie })
+    expect(summary.status).toBe(200)
+    expect(summary.body.runs.length).toBe(full.body.runs.length)
+    expect(summary.body.runs.length).toBeGreaterThan(0)
+    for (const [i, run] of full.body.runs.entries()) {
+      const { components: _c, suggestions: _s, notes, ...rest } = run.assessment
+      expect(notes.length).toBeGreaterThan(0)
+      expect(summary.body.runs[i].assessment).toEqual(rest)
+      expect(summary.body.runs[i].components).toEqual(run.components)
+    }
+    expect(JSON.stringify(summary.body).length).toBeLessThan(JSON.stringify(full.body).length / 2)
+    const bad = await call('GET', `/api/plans/${plan.id}?assessment=brief`, { cookie })
+    expect(bad.status).toBe(422)
+    expect(JSON.stringify(bad.body)).toContain('assessment')
+  })
+
   it('fills a component from its material and names an unknown material', async () => {
     const coal = await material('Client coal KRC-2611')
     const ok = await addRun(plan.id, { sampleCode: unique('KRC'), components: [{ role: 'sample', materialId: coal.id, massG: 0.9 }, { role: 'fuse', wire: 'nichrome', lengthCm: 10 }] })

@@ -1,4 +1,5 @@
-import { boolean, doublePrecision, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import { boolean, check, date, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core'
+import { sql } from 'drizzle-orm'
 import type { AnyPgColumn } from 'drizzle-orm/pg-core'
 import { VESSEL_CONDITIONS, VESSEL_STATES } from '../../../shared/domain/vessel-state'
 import { FIRING_OUTCOMES } from '../../../shared/domain/vessel-lifecycle'
@@ -71,6 +72,17 @@ export const firings = pgTable('firings', {
   index('firings_vessel_idx').on(t.vesselId, t.firedAt),
   uniqueIndex('firings_user_idempotency_key_idx').on(t.firedBy, t.idempotencyKey),
   oneOf('firings_outcome_check', t.outcome, FIRING_OUTCOMES),
+])
+
+// Firings per vessel and UTC day, kept by triggers on firings (migration 0008) in the same statement as the firing, so
+// a firing rate over weeks reads a few dozen rows instead of every firing. Never written by the app itself.
+export const vesselFiringDays = pgTable('vessel_firing_days', {
+  vesselId: uuid('vessel_id').notNull().references(() => vessels.id),
+  day: date('day', { mode: 'string' }).notNull(),
+  firings: integer('firings').notNull(),
+}, t => [
+  primaryKey({ columns: [t.vesselId, t.day] }),
+  check('vessel_firing_days_firings_check', sql`${t.firings} >= 0`),
 ])
 
 // ─── Vessel servicing ────────────────────────────────────────────────────────────────────────

@@ -152,6 +152,11 @@ export interface Assessment {
   notes: MethodNote[]
 }
 
+/** What a list of runs shows of each stored assessment: the verdict, the findings and the headline figures. */
+export type AssessmentSummary = Omit<Assessment, 'components' | 'suggestions' | 'notes'>
+/** The keys left out of a summary (PostgreSQL's jsonb `-` takes them off before the row leaves the database). */
+export const ASSESSMENT_DETAIL_KEYS = ['components', 'suggestions', 'notes'] as const satisfies readonly (keyof Assessment)[]
+
 /** Stable finding codes with their severity, for the docs and the interface. */
 export const FINDING_CODES = {
   'vessel-overdue': { severity: 'block', description: 'The vessel is overdue for routine service.' },
