@@ -101,6 +101,14 @@ export default defineNuxtConfig({
       },
     },
   },
+  hooks: {
+    // Nitro copies the runtime config and looks up an environment variable for every key of it once per request
+    // (useRuntimeConfig(event)); nuxt-auth-utils adds 249 keys for OAuth providers the product never uses (sign-in is
+    // by password only), two thirds of that work on every request and on every internal fetch of a page.
+    'nitro:config'(config) {
+      delete (config.runtimeConfig as Record<string, unknown> | undefined)?.oauth
+    },
+  },
   tailwindcss: { cssPath: false, configPath: 'tailwind.config.ts', viewer: false },
   eslint: { config: { stylistic: false } },
   typescript: { strict: true },

@@ -1,6 +1,7 @@
 // The fleet at a glance: every vessel's state, its service forecast from the recent firing
 // rate, and the firing history of one vessel. Counts read the firings index within a bounded window only.
 import { and, eq, gt, gte, inArray, lt, sql } from 'drizzle-orm'
+import { unionAll } from 'drizzle-orm/pg-core'
 import { forecastServiceDate } from '#shared/domain/vessel-state'
 import type { VesselServiceState } from '#shared/domain/vessel-state'
 import type { VesselView } from './vessels'
@@ -24,14 +25,14 @@ export async function firingsSince(db: Db | Tx, vesselIds: string[], since: Date
   const nextDayStart = new Date(Date.parse(`${firstDay}T00:00:00Z`) + DAY_MS)
   // Grouped on the tables themselves: a correlated sub-select rendered the vessel's "id" unqualified, and
   // PostgreSQL resolved it to the firing's own id, so every vessel counted 0.
-  const [days, partial] = await Promise.all([
-    db.select({ id: d.vesselId, n: sql<number>`sum(${d.firings})::int` }).from(d)
-      .where(and(inArray(d.vesselId, vesselIds), gt(d.day, firstDay))).groupBy(d.vesselId),
-    db.select({ id: f.vesselId, n: sql<number>`count(*)::int` }).from(f)
-      .where(and(inArray(f.vesselId, vesselIds), gte(f.firedAt, since), lt(f.firedAt, nextDayStart))).groupBy(f.vesselId),
-  ])
+  // One round trip: on this machine each query costs its socket write and read in the server's CPU (docs/benchmarks.md).
+  const days = db.select({ id: d.vesselId, n: sql<number>`sum(${d.firings})::int`.as('n') }).from(d)
+    .where(and(inArray(d.vesselId, vesselIds), gt(d.day, firstDay))).groupBy(d.vesselId)
+  const partial = db.select({ id: f.vesselId, n: sql<number>`count(*)::int`.as('n') }).from(f)
+    .where(and(inArray(f.vesselId, vesselIds), gte(f.firedAt, since), lt(f.firedAt, nextDayStart))).groupBy(f.vesselId)
+  const rows = await unionAll(days, partial)
   const counts = new Map(vesselIds.map(id => [id, 0]))
-  for (const r of [...days, ...partial]) counts.set(r.id, (counts.get(r.id) ?? 0) + Number(r.n))
+  for (const r of rows) counts.set(r.id, (counts.get(r.id) ?? 0) + Number(r.n))
   return counts
 }
 

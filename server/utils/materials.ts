@@ -20,7 +20,25 @@ export async function findMaterialOr404(db: Db | Tx, id: string): Promise<Materi
 const PROBE_VESSEL = { ratedEnergyJ: 1e6, maxChargeMassG: 100, maxFillPressureMPa: 10, volumeMl: 5000, class: 'high-strength' as const }
 
 /** Derived figures of a material: estimated heating value, oxygen demand per gram, oxygen balance, screening. */
-export async function materialDerived(m: MaterialRow, policy: LabPolicy) {
+export function materialDerived(m: MaterialRow, policy: LabPolicy): ReturnType<typeof deriveMaterial> {
+  // A pure function of the row and the policy, kept per policy object: a policy copy lives while it is in force
+  // (server/utils/policy.ts; a change or a read without the change listener brings a new object, and with it an empty
+  // cache). The key is the whole row, so any change to the material is a new entry.
+  let known = derivedByPolicy.get(policy)
+  if (!known) derivedByPolicy.set(policy, known = new Map())
+  const key = JSON.stringify(m)
+  const hit = known.get(key)
+  if (hit) return hit
+  if (known.size >= DERIVED_CACHE_MAX) known.clear()
+  const derived = deriveMaterial(m, policy)
+  known.set(key, derived)
+  derived.catch(() => known.delete(key))
+  return derived
+}
+const DERIVED_CACHE_MAX = 5_000
+const derivedByPolicy = new WeakMap<LabPolicy, Map<string, ReturnType<typeof deriveMaterial>>>()
+
+async function deriveMaterial(m: MaterialRow, policy: LabPolicy) {
   try {
     const [resolved] = await resolveComponents([componentFromMaterial(m, { massG: 1 })])
     const a = assessCharge({ vessel: PROBE_VESSEL, fillPressureMPa: 3, components: [resolved!] }, policy)

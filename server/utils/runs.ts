@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto'
-import { asc, count, eq, inArray, max } from 'drizzle-orm'
+import { and, asc, count, eq, inArray, max } from 'drizzle-orm'
 import { z } from 'zod'
 import { assess, chargeInputSchema, ChargeInputError } from '#shared/domain/assessment'
 import type { Assessment, AssessmentSummary, ChargeComponentInput } from '#shared/domain/assessment'
@@ -139,7 +139,8 @@ export function runView<R extends Omit<RunRow, 'assessment'> & { assessment: Ass
 
 export async function signaturesFor(db: Db | Tx, runIds: string[]) {
   if (!runIds.length) return new Map<string, SignatureRow[]>()
-  const rows = await db.select().from(schema.signatures).where(inArray(schema.signatures.entityId, runIds)).orderBy(asc(schema.signatures.signedAt))
+  // With the entity named, the (entity, entity_id) index answers it.
+  const rows = await db.select().from(schema.signatures).where(and(eq(schema.signatures.entity, 'run'), inArray(schema.signatures.entityId, runIds))).orderBy(asc(schema.signatures.signedAt))
   const map = new Map<string, SignatureRow[]>()
   for (const s of rows) map.set(s.entityId, [...(map.get(s.entityId) ?? []), s])
   return map

@@ -37,11 +37,18 @@ describe('materials library', () => {
     // as fired with 12 % moisture: 25.783 × 0.88 = 22.689 MJ/kg.
     expect(created.body.derived.estimatedHeatingValueJPerG).toBeCloseTo(22689, -1)
     expect(await auditRows({ action: 'material.create', entityId: created.body.id })).toHaveLength(1)
+    // Derived figures are kept per process for a row as it is: read before the change, they must follow it after.
+    const before = await call('GET', `/api/materials/${created.body.id}`, { cookie: sup })
+    expect(before.body.derived.heatingValueSource).toBe('correlation')
     const noReason = await call('PATCH', `/api/materials/${created.body.id}`, { cookie: sup, body: { notes: 'x' } })
     expect(noReason.status).toBe(422)
     const ok = await call('PATCH', `/api/materials/${created.body.id}`, { cookie: sup, body: { heatingValueJPerG: 22400, heatingValueSource: 'lab result', reason: 'measured value now available' } })
     expect(ok.status).toBe(200)
     expect(ok.body.derived.heatingValueSource).toBe('material')
+    const after = await call('GET', `/api/materials/${created.body.id}`, { cookie: sup })
+    expect(after.body.derived).toMatchObject({ heatingValueSource: 'material', heatingValueJPerG: 22400 })
+    const listed = await call('GET', `/api/materials?q=${encodeURIComponent(body.name)}`, { cookie: sup })
+    expect(listed.body.rows[0].derived).toMatchObject({ heatingValueSource: 'material', heatingValueJPerG: 22400 })
     expect(await auditRows({ action: 'material.update', entityId: created.body.id })).toHaveLength(1)
   })
 

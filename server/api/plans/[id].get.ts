@@ -1,4 +1,4 @@
-import { asc, count, eq, getTableColumns, sql } from 'drizzle-orm'
+import { asc, count, eq, getTableColumns, inArray, sql } from 'drizzle-orm'
 import { ASSESSMENT_DETAIL_KEYS } from '#shared/domain/assessment'
 import type { AssessmentSummary } from '#shared/domain/assessment'
 import { z } from 'zod'
@@ -21,17 +21,23 @@ export default defineEventHandler(async (event) => {
   const { runsOffset, runsLimit, assessment } = parseQuery(event, query)
   const db = useDb()
   const plan = await findPlanOr404(db, id)
-  const [runRows, [counts], vesselIdRows, [author], policy] = await Promise.all([
+  const [runRows, [counts], [author], policy] = await Promise.all([
     db.select(assessment === 'summary' ? { ...getTableColumns(schema.runs), assessment: sql<AssessmentSummary>`${schema.runs.assessment}${withoutDetail}` } : getTableColumns(schema.runs))
       .from(schema.runs).where(eq(schema.runs.planId, id)).orderBy(asc(schema.runs.seq)).offset(runsOffset).limit(runsLimit),
-    db.select({ total: count(), drafts: sql<number>`count(*) filter (where ${schema.runs.status} = 'draft')`.mapWith(Number) }).from(schema.runs).where(eq(schema.runs.planId, id)),
-    db.selectDistinct({ vesselId: schema.runs.vesselId }).from(schema.runs).where(eq(schema.runs.planId, id)),
+    // Counts and the vessels used, over all runs of the plan (not only this page), in one pass.
+    db.select({
+      total: count(),
+      drafts: sql<number>`count(*) filter (where ${schema.runs.status} = 'draft')`.mapWith(Number),
+      vesselIds: sql<string[]>`array_agg(distinct ${schema.runs.vesselId})::text[]`,
+    }).from(schema.runs).where(eq(schema.runs.planId, id)),
     db.select({ name: schema.users.name }).from(schema.users).where(eq(schema.users.id, plan.createdBy)),
     getPolicy(),
   ])
-  const sigs = await signaturesFor(db, runRows.map(r => r.id))
-  const vesselIds = [...new Set([plan.vesselId, ...vesselIdRows.map(r => r.vesselId)])]
-  const vesselRows = await Promise.all(vesselIds.map(v => findVesselOr404(db, v)))
+  const vesselIds = [...new Set([plan.vesselId, ...(counts?.vesselIds ?? []).filter(Boolean)])]
+  const [sigs, vesselRows] = await Promise.all([
+    signaturesFor(db, runRows.map(r => r.id)),
+    db.select().from(schema.vessels).where(inArray(schema.vessels.id, vesselIds)).orderBy(asc(schema.vessels.name)),
+  ])
   return {
     ...plan,
     createdByName: author?.name ?? '',

@@ -1,0 +1,1 @@
+CREATE INDEX "materials_list_idx" ON "materials" USING btree ("reference","name") WHERE "materials"."active";
