@@ -298,7 +298,12 @@ async function main() {
     { name: 'GET /login', request: () => fetch(`${BASE}/login`) },
     { name: 'GET / (Today)', request: () => fetch(`${BASE}/`, { headers: { cookie } }) },
   )
-  if (!health || !settings || !loginPage || !today) throw new Error('no ratio figures')
+  // The signed-in page shell on its own (a page with little data), to tell the shell from Today's own work.
+  const [loginAgain, account] = await compare(
+    { name: 'GET /login', request: () => fetch(`${BASE}/login`) },
+    { name: 'GET /account', request: () => fetch(`${BASE}/account`, { headers: { cookie } }) },
+  )
+  if (!health || !settings || !loginPage || !today || !loginAgain || !account) throw new Error('no ratio figures')
   log('client JS of /check')
   const weight = await pageWeight(cookie, '/check')
 
@@ -345,6 +350,7 @@ async function main() {
     ['`GET /api/settings` against health', `${fmt(settings.rps)} req/s = ${fmt(settings.rps / health.rps, 2)} × health`, 'aim ≥ 0.6 × health, measured in alternating slices with it'],
     ['`GET /login` (server-rendered, no data)', `${fmt(loginPage.rps)} req/s`, `median latency ${fmt(loginPage.p50Ms, 1)} ms`],
     ['`GET /` Today (server-rendered, signed in, large lab)', `${fmt(today.rps)} req/s = ${fmt(today.rps / loginPage.rps, 2)} × /login`, 'aim ≥ 0.5 × the sign-in page, alternating slices with it'],
+    ['`GET /account` (server-rendered, signed in, little data)', `${fmt(account.rps)} req/s = ${fmt(account.rps / loginAgain.rps, 2)} × /login`, `the signed-in page shell alone (no aim); alternating slices with /login at ${fmt(loginAgain.rps)} req/s`],
     ['Ratio assess / trivial', fmt(assess.rps / trivial.rps, 2), `aim ≥ 0.5; ${cpus().length} cores, load average ${fmt(loadBefore, 1)} at the start (the load generator shares the machine)`],
     ['Quick check page, client JS', `${fmt(weight.gzipKB, 1)} kB gzip`, `${weight.files} files (${fmt(weight.rawKB, 0)} kB raw) from script and modulepreload tags; formula and SMILES libraries load later, on first use`],
     ...routes.map(r => [`Large lab: ${r.name}`, `${fmt(r.p50, 1)} ms median, ${fmt(r.p95, 1)} ms p95`, `${r.n} requests one at a time; 50 vessels, 100,000 firings, 20,000 materials, 200,000 audit rows (scripts/bench-seed.ts)`]),
