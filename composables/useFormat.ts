@@ -4,6 +4,7 @@
 const numberFormats = new Map<number, Intl.NumberFormat>()
 const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' })
 const dateTimeFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' })
+const longDateFormat = new Intl.DateTimeFormat('en-GB', { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric' })
 
 function numberFormat(digits: number): Intl.NumberFormat {
   let format = numberFormats.get(digits)
@@ -28,6 +29,11 @@ export function fmtDate(value: string | Date | null | undefined): string {
 
 export function fmtDateTime(value: string | Date | null | undefined): string {
   return formatDate(dateTimeFormat, value)
+}
+
+/** A day written out, "Wednesday, 2 December 2026" in en-GB, as at the head of Today. */
+export function fmtLongDate(value: string | Date | null | undefined): string {
+  return formatDate(longDateFormat, value)
 }
 
 /** Energy in kJ with one decimal, the way ratings are written on a vessel. */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { fmtDate, fmtDateTime, fmtKJ, fmtNum } from '../../../composables/useFormat'
+import { fmtDate, fmtDateTime, fmtKJ, fmtLongDate, fmtNum } from '../../../composables/useFormat'
 
 // The figures a page shows: British English grouping and dates (CLDR en-GB patterns, as ECMA-402 formatters give them),
 // the same text that toLocaleString wrote before the formatters were kept for reuse.
@@ -30,5 +30,8 @@ describe('formatting for the pages', () => {
     expect(fmtDate('2026-12-02T12:00:00Z')).toBe('2 Dec 2026')
     const at = new Date('2026-12-02T12:00:00Z')
     expect(fmtDateTime(at)).toBe(at.toLocaleString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' }))
+    // The head of Today: 2 December 2026 is a Wednesday (ISO 8601 calendar).
+    expect(fmtLongDate(at)).toBe('Wednesday, 2 December 2026')
+    expect(fmtLongDate(at)).toBe(at.toLocaleDateString('en-GB', { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric' }))
   })
 })
