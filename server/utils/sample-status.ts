@@ -19,7 +19,7 @@ export async function settleSampleStatus(tx: Tx, actor: Actor, sampleId: string 
   const firings = fired.length
     ? await tx.select({ outcome: schema.firings.outcome }).from(schema.firings).where(inArray(schema.firings.runId, fired))
     : []
-  const state = sampleBenchState(runs.map(r => r.status), firings.map(f => f.outcome), policy.determinationsPerSample)
+  const state = sampleBenchState(runs.map(r => r.status), firings.map(f => f.outcome), sample.determinations ?? policy.determinationsPerSample)
   if (state.status === sample.status) return null
   await tx.update(schema.samples).set({ status: state.status, updatedAt: new Date() }).where(eq(schema.samples.id, sampleId))
   await audit(tx, actor, {

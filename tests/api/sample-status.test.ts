@@ -73,6 +73,26 @@ describe('sample status from its runs', () => {
     expect((await call('GET', `/api/samples/${sample.id}`, { cookie: await as('technician') })).body.reports).toEqual([])
   })
 
+  it('counts a single planned determination once its repeat after a misfire gives a result', async () => {
+    // The lab's policy asks duplicates; the analyst planned one determination for this sample.
+    const s = await receive(client.id, { materialId: ba, description: 'Benzoic acid pellets, one determination' })
+    const plan = await newPlan(vesselId)
+    const planned = await call('POST', `/api/plans/${plan.id}/from-samples`, { cookie: await as('analyst'), body: { sampleIds: [s.id], determinations: 1 } })
+    expect(planned.status, JSON.stringify(planned.body)).toBe(201)
+    const [only] = planned.body.runs as [Run]
+    await call('POST', `/api/plans/${plan.id}/submit`, { cookie: await as('analyst'), body: {} })
+    expect((await fire(only.id, { weighedMassG: massOf(only), outcome: 'misfire' })).status).toBe(201)
+    expect(await sampleStatus(s.id)).toBe('planned')
+    const repeat = await call('POST', `/api/runs/${only.id}/duplicate`, { cookie: await as('analyst'), body: {} })
+    expect(repeat.status).toBe(201)
+    await call('POST', `/api/plans/${plan.id}/submit`, { cookie: await as('analyst'), body: {} })
+    expect((await fire(repeat.body.id, { weighedMassG: massOf(only) })).status).toBe(201)
+    // Two runs, one result: the one determination planned is done (before, the repeat counted as a second one asked for).
+    expect(await sampleStatus(s.id)).toBe('tested')
+    const { rows } = await testDb().query(`select determinations from samples where id = $1`, [s.id])
+    expect(rows[0].determinations).toBe(1)
+  })
+
   it('does not count a withdrawn run; a repeat planned after testing sends the sample back to planned', async () => {
     const { sample, runs } = await plannedSample()
     const [a, b] = runs as [Run, Run]

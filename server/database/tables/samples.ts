@@ -1,4 +1,5 @@
-import { date, doublePrecision, index, jsonb, pgSequence, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core'
+import { check, date, doublePrecision, index, integer, jsonb, pgSequence, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core'
+import { sql } from 'drizzle-orm'
 import { SAMPLE_STATUSES } from '../../../shared/schemas/samples'
 import type { StoredDayPlan } from '../../../shared/types/stored'
 import { createdAt, id, oneOf, updatedAt } from './columns'
@@ -33,6 +34,9 @@ export const samples = pgTable('samples', {
   note: text('note').notNull().default(''),
   status: text('status', { enum: SAMPLE_STATUSES }).notNull().default('received'),
   rejectionReason: text('rejection_reason'),
+  // How many determinations the analyst planned for it (null until planned). A repeat of a failed firing adds a run,
+  // not a determination, so the sample's bench state counts against this number, not against its runs.
+  determinations: integer('determinations'),
   receivedBy: uuid('received_by').notNull().references(() => users.id),
   createdAt: createdAt(),
   updatedAt: updatedAt(),
@@ -40,6 +44,7 @@ export const samples = pgTable('samples', {
   index('samples_status_idx').on(t.status, t.receivedAt),
   index('samples_client_idx').on(t.clientId),
   oneOf('samples_status_check', t.status, SAMPLE_STATUSES),
+  check('samples_determinations_check', sql`${t.determinations} is null or ${t.determinations} between 1 and 10`),
 ])
 
 // An accepted day plan: which runs each vessel fires on a day, in which order, and why.

@@ -31,4 +31,12 @@ describe('when a sample is tested', () => {
     expect(sampleBenchState(['fired', 'fired', 'fired'], ['complete', 'complete', 'complete'], 3).status).toBe('tested')
     expect(sampleBenchState(['fired', 'fired', 'fired'], ['complete', 'complete', 'leak'], 3).status).toBe('planned')
   })
+
+  it('counts against the determinations planned for the sample: a repeat of a failed firing is not a further one', () => {
+    // One determination planned; it misfired, and its repeat burned completely: tested.
+    expect(sampleBenchState(['fired'], ['misfire'], 1)).toMatchObject({ status: 'planned' })
+    expect(sampleBenchState(['fired', 'fired'], ['misfire', 'complete'], 1).status).toBe('tested')
+    // Duplicates planned, one misfired and not yet repeated: the same two runs and outcomes, still planned.
+    expect(sampleBenchState(['fired', 'fired'], ['misfire', 'complete'], 2).status).toBe('planned')
+  })
 })

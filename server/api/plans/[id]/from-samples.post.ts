@@ -46,7 +46,7 @@ export default defineEventHandler(async (event) => {
         await audit(tx, event, { action: 'run.create', entity: 'run', entityId: row!.id, newValues: { ...row!, assessment: undefined, verdict: assessment.verdict } })
         out.push(row!)
       }
-      await tx.update(schema.samples).set({ status: 'planned', updatedAt: new Date() }).where(eq(schema.samples.id, sid))
+      await tx.update(schema.samples).set({ status: 'planned', determinations, updatedAt: new Date() }).where(eq(schema.samples.id, sid))
       await audit(tx, event, { action: 'sample.plan', entity: 'sample', entityId: sid, oldValues: { status: 'received' }, newValues: { status: 'planned', planId: id, runs: determinations } })
     }
     return out

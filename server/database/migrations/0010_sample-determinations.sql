@@ -1,0 +1,2 @@
+ALTER TABLE "samples" ADD COLUMN "determinations" integer;--> statement-breakpoint
+ALTER TABLE "samples" ADD CONSTRAINT "samples_determinations_check" CHECK ("samples"."determinations" is null or "samples"."determinations" between 1 and 10);
