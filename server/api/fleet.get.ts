@@ -12,10 +12,12 @@ export default defineEventHandler(async (event) => {
   const db = useDb()
   const now = new Date()
   const [rows, policy] = await Promise.all([db.select().from(schema.vessels).orderBy(asc(schema.vessels.name)), getPolicy()])
-  const recent = await firingsSince(db, rows.map(r => r.id), new Date(now.getTime() - FORECAST_WINDOW_DAYS * 86_400_000))
   const views = rows.map(r => vesselView(r, policy, now))
   // Accepted day plans ahead can bring service sooner than the recent rate says.
-  const planned = await plannedServiceDates(db, views, now)
+  const [recent, planned] = await Promise.all([
+    firingsSince(db, rows.map(r => r.id), new Date(now.getTime() - FORECAST_WINDOW_DAYS * 86_400_000)),
+    plannedServiceDates(db, views, now),
+  ])
   const vessels = views.map(view => fleetRow(view, { ...serviceForecast(view, recent.get(view.id) ?? 0, now), dayPlans: planned.get(view.id) ?? null }))
 
   // One query per queue: the rows shown and, in each row, the count of all waiting (a window over the whole match).

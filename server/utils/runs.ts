@@ -124,7 +124,7 @@ export function runView<R extends Omit<RunRow, 'assessment'> & { assessment: Ass
     components: r.components,
     status: r.status as RunStatus,
     verdict: r.verdict,
-    assessment: r.assessment as R['assessment'],
+    assessment: r.assessment,
     chargeHash: r.chargeHash,
     note: r.note,
     plannedBy: r.plannedBy,
@@ -142,7 +142,11 @@ export async function signaturesFor(db: Db | Tx, runIds: string[]) {
   // With the entity named, the (entity, entity_id) index answers it.
   const rows = await db.select().from(schema.signatures).where(and(eq(schema.signatures.entity, 'run'), inArray(schema.signatures.entityId, runIds))).orderBy(asc(schema.signatures.signedAt))
   const map = new Map<string, SignatureRow[]>()
-  for (const s of rows) map.set(s.entityId, [...(map.get(s.entityId) ?? []), s])
+  for (const s of rows) {
+    const list = map.get(s.entityId)
+    if (list) list.push(s)
+    else map.set(s.entityId, [s])
+  }
   return map
 }
 
